@@ -1,0 +1,22 @@
+// The registry of checks, in the order a pack lists them (CONTRACT.md check ids).
+import type { Check, CheckId } from '../types.js';
+import { insulation } from './insulation.js';
+import { pending, rcdCheck, rcdTtCheck, ringCheck } from './pending.js';
+import { polarity } from './polarity.js';
+import { zsMeasured } from './zs-measured.js';
+
+export const CHECKS: readonly (readonly [CheckId, Check])[] = [
+  ['overload', pending('overload', 'overload protection Ib ≤ In ≤ Iz')],
+  ['voltage-drop', pending('voltage-drop', 'voltage drop')],
+  ['zs-design', pending('zs-design', 'design Zs against max Zs')],
+  ['disconnection', pending('disconnection', 'disconnection time at the design fault current')],
+  ['adiabatic', pending('adiabatic', 'protective conductor size (adiabatic)')],
+  ['breaking-capacity', pending('breaking-capacity', 'breaking capacity against the prospective fault current')],
+  ['continuity', pending('continuity', 'continuity of protective conductors (R1+R2)')],
+  ['ring', ringCheck],
+  ['insulation', insulation],
+  ['polarity', polarity],
+  ['zs-measured', zsMeasured],
+  ['rcd', rcdCheck],
+  ['rcd-tt', rcdTtCheck],
+];

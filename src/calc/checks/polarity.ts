@@ -1,0 +1,17 @@
+// Polarity: every single-pole device in the line conductor, as recorded by the tester.
+import type { Check } from '../types.js';
+import { notVerified, result } from './result.js';
+
+export const polarity: Check = ({ readings }) => {
+  const m = readings.polarity;
+  if (!m) return notVerified('polarity', 'no polarity result recorded in any test session');
+  switch (m.value) {
+    case 'ok': return result('polarity', 'pass', `polarity confirmed correct on ${m.date}`, { date: m.date });
+    case 'fail': return result('polarity', 'fail', `polarity found incorrect on ${m.date}`, { date: m.date });
+    case 'n/a':
+      return readings.notes
+        ? result('polarity', 'n/a', `polarity marked n/a on ${m.date}: ${readings.notes.value}`, { date: m.date })
+        : result('polarity', 'not-verified', `polarity marked n/a on ${m.date} with no reason in notes`, { date: m.date });
+    default: return result('polarity', 'not-verified', `polarity marked not tested on ${m.date}`, { date: m.date });
+  }
+};

@@ -1,0 +1,63 @@
+// The Assessment: what calc returns for a Project. Shapes follow CONTRACT.md (`check --json`).
+import type { Board, Supply } from '../model/schema.js';
+import type { CircuitRecord } from '../model/validate.js';
+import type { CircuitReadings } from '../model/readings.js';
+import type { Rules } from './rules.js';
+
+export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
+export type Status = (typeof STATUSES)[number];
+
+export const CHECK_IDS = [
+  'overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity',
+  'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt',
+] as const;
+export type CheckId = (typeof CHECK_IDS)[number];
+
+export interface CheckResult {
+  id: CheckId;
+  status: Status;
+  value: number | null;
+  limit: number | null;
+  unit: string | null;
+  /** one line naming the numbers and the rule, so a reader can redo it by hand */
+  basis: string;
+  /** the test date of the reading judged, where a reading was judged */
+  date?: string;
+}
+
+export interface Derived {
+  max_zs_ohm: number | null;
+  required_disconnect_s: number;
+  [key: string]: number | null;
+}
+
+/** Everything a check may look at for one circuit. */
+export interface CircuitContext {
+  circuit: CircuitRecord;
+  board: Board;
+  supply: Supply;
+  rules: Rules;
+  readings: CircuitReadings;
+  derived: Derived;
+  /** why max Zs is what it is (or why it is unknown) */
+  maxZsBasis: string;
+}
+
+export type Check = (ctx: CircuitContext) => CheckResult;
+
+export interface CircuitAssessment {
+  board: string;
+  ref: string;
+  description: string;
+  derived: Derived;
+  checks: CheckResult[];
+}
+
+export type Summary = Record<Status, number>;
+
+export interface Assessment {
+  job: string;
+  rules: Rules;
+  circuits: CircuitAssessment[];
+  summary: Summary;
+}

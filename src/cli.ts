@@ -1,0 +1,74 @@
+#!/usr/bin/env node
+// The command line: parse arguments, call the stages, print, set exit codes (CONTRACT.md).
+import { parseArgs } from 'node:util';
+import { loadJob } from './job.js';
+import { formatError } from './load/raw.js';
+import { assessmentText } from './render/text.js';
+import { build, defaultJobs } from './build.js';
+import { NO_CHROMIUM_HELP } from './print/browser.js';
+
+const USAGE = `usage:
+  packsmith build [job-folder...] [--out DIR]   render draft packs (HTML and PDF) into DIR (default out/)
+  packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
+`;
+
+type Exit = 0 | 1 | 2;
+
+function check(args: string[]): Exit {
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { json: { type: 'boolean' } } });
+  if (positionals.length !== 1) {
+    process.stderr.write(`packsmith check needs one job folder\n${USAGE}`);
+    return 2;
+  }
+  const job = loadJob(positionals[0]!);
+  if (!job.ok) {
+    for (const e of job.errors) process.stderr.write(`${formatError(e)}\n`);
+    process.stderr.write(`${job.errors.length} problem${job.errors.length === 1 ? '' : 's'} in ${job.raw.name}; nothing was assessed\n`);
+    if (values.json) process.stdout.write(`${JSON.stringify({ job: job.raw.name, errors: job.errors }, null, 2)}\n`);
+    return 2;
+  }
+  const a = job.assessment;
+  if (values.json) {
+    const { overrides, ...rules } = a.rules;
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary }, null, 2)}\n`);
+  } else {
+    process.stdout.write(assessmentText(a));
+  }
+  return a.summary.fail > 0 || a.summary['not-verified'] > 0 ? 1 : 0;
+}
+
+async function buildCommand(args: string[]): Promise<Exit> {
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' } } });
+  const jobs = positionals.length ? positionals : defaultJobs();
+  if (jobs.length === 0) {
+    process.stderr.write('no job folders given and none found under projects/\n');
+    return 2;
+  }
+  const r = await build({ jobs, out: values.out! });
+  for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
+  if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);
+  return r.invalid.length > 0 ? 2 : 0;
+}
+
+async function main(argv: string[]): Promise<Exit> {
+  const [command, ...rest] = argv;
+  switch (command) {
+    case 'check': return check(rest);
+    case 'build': return buildCommand(rest);
+    case undefined: case '-h': case '--help': case 'help':
+      process.stdout.write(USAGE);
+      return command === undefined ? 2 : 0;
+    default:
+      process.stderr.write(`unknown command "${command}"\n${USAGE}`);
+      return 2;
+  }
+}
+
+main(process.argv.slice(2)).then(
+  (code) => { process.exitCode = code; },
+  (err: unknown) => {
+    // Input problems are reported by the stages; anything reaching here is ours, said plainly.
+    process.stderr.write(`packsmith: ${err instanceof Error ? err.message : String(err)}\n`);
+    process.exitCode = 2;
+  },
+);

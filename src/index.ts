@@ -1,0 +1,10 @@
+// packsmith's public API; the command line is one caller of it.
+export { readJob } from './load/job.js';
+export { validate, type Project } from './model/validate.js';
+export { assess } from './calc/assess.js';
+export { loadJob, type LoadedJob } from './job.js';
+export { renderPack } from './render/pack.js';
+export { printPdf } from './print/pdf.js';
+export { launchBrowser, findChromium } from './print/browser.js';
+export { build } from './build.js';
+export type { Assessment, CheckResult, Status } from './calc/types.js';

@@ -1,0 +1,66 @@
+// zod building blocks for cells: a CSV cell or YAML value with a unit becomes a typed value,
+// and every problem becomes a message in the words of the trade (what was found, what was expected).
+import { z } from 'zod';
+import { parseCell, QUANTITIES, type Quantity, type Reading } from './units.js';
+
+const found = (input: unknown): string =>
+  input === undefined || input === '' ? 'nothing' : `"${String(input)}"`;
+
+/** YAML gives numbers as numbers; CSV gives text. Both end up as text for the unit parser. */
+const asText = (v: unknown): unknown => (typeof v === 'number' ? String(v) : v);
+
+const text = (what: string) =>
+  z.preprocess(asText, z.string({ error: (iss) => `found ${found(iss.input)}; expected ${what}` }));
+
+/** A design value: a plain number in the field's unit (no n/a, no over-range). */
+export function quantity(q: Quantity, opts: { positive?: boolean; min?: number; max?: number } = {}) {
+  return text(QUANTITIES[q].words).transform((s, ctx) => {
+    const r = parseCell(s, q);
+    if (!r.ok) {
+      ctx.addIssue({ code: 'custom', message: r.message });
+      return z.NEVER;
+    }
+    if (r.reading.kind !== 'value') {
+      ctx.addIssue({ code: 'custom', message: `found "${s}"; design data needs ${QUANTITIES[q].words} here` });
+      return z.NEVER;
+    }
+    const v = r.reading.value;
+    if (opts.positive && v <= 0) {
+      ctx.addIssue({ code: 'custom', message: `found "${s}"; expected ${QUANTITIES[q].words} greater than zero` });
+    } else if (opts.min !== undefined && v < opts.min) {
+      ctx.addIssue({ code: 'custom', message: `found "${s}"; expected at least ${opts.min}` });
+    } else if (opts.max !== undefined && v > opts.max) {
+      ctx.addIssue({ code: 'custom', message: `found "${s}"; expected at most ${opts.max}` });
+    }
+    return v;
+  });
+}
+
+/** A test reading: a number, an over-range lower bound, n/a or not-tested. */
+export function reading(q: Quantity) {
+  return text(QUANTITIES[q].words).transform((s, ctx): Reading => {
+    const r = parseCell(s, q);
+    if (!r.ok) {
+      ctx.addIssue({ code: 'custom', message: r.message });
+      return z.NEVER;
+    }
+    return r.reading;
+  });
+}
+
+/** One of a fixed set of words, case-insensitive; the message lists the choices. */
+export function choice<const T extends readonly [string, ...string[]]>(values: T, what: string) {
+  const lookup = new Map(values.map((v) => [v.toLowerCase(), v]));
+  return text(what).transform((s, ctx): T[number] => {
+    const v = lookup.get(s.trim().toLowerCase());
+    if (v === undefined) {
+      ctx.addIssue({ code: 'custom', message: `found "${s}"; expected ${what}: ${values.join(', ')}` });
+      return z.NEVER;
+    }
+    return v;
+  });
+}
+
+export const yesNo = (what: string) => choice(['yes', 'no'] as const, what).transform((v) => v === 'yes');
+
+export const word = (what: string) => text(what).pipe(z.string().trim().min(1, { error: `found nothing; expected ${what}` }));

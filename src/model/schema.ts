@@ -1,0 +1,144 @@
+// The job's zod schemas: the single source of truth for its types (inferred below).
+// Field names, defaults and choices follow CONTRACT.md.
+import { z } from 'zod';
+import { DEVICE_CODES } from '../reference/device-codes.js';
+import { choice, quantity, reading, word, yesNo } from './cells.js';
+import type { Quantity } from './units.js';
+
+// ---------------------------------------------------------------- project.yaml
+
+const Party = z.strictObject({
+  name: word('a name'),
+  address: word('an address').optional(),
+  contact: word('a contact').optional(),
+});
+
+const isoDate = word('a date as YYYY-MM-DD').refine((s) => /^\d{4}-\d{2}-\d{2}$/.test(s) && !Number.isNaN(Date.parse(s)), {
+  error: (iss) => `found "${String(iss.input)}"; expected a date as YYYY-MM-DD`,
+});
+
+export const EARTHING = ['TN-S', 'TN-C-S', 'TT', 'IT'] as const;
+
+export const SupplySchema = z.strictObject({
+  earthing: choice(EARTHING, 'the earthing system'),
+  u0_v: quantity('volt', { positive: true }).default(230),
+  phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
+  frequency_hz: z.number({ error: 'expected the frequency in Hz, e.g. 50' }).default(50),
+  ze_ohm: quantity('ohm').optional(),
+  pfc_ka: quantity('kiloampere').optional(),
+  ra_ohm: quantity('ohm').optional(),
+  main_switch: word('the main switch, e.g. "100 A 2-pole"').optional(),
+});
+
+export const RulesSchema = z.strictObject({
+  set: choice(['iec-60364'] as const, 'a rule set').default('iec-60364'),
+  cmin: z.number({ error: 'expected the voltage factor Cmin, e.g. 0.95' }).min(0.5).max(1.1).optional(),
+  measured_zs_factor: z.number({ error: 'expected a factor for measured Zs, e.g. 0.8' }).gt(0).max(1).optional(),
+  vd_lighting_percent: z.number().gt(0).max(20).optional(),
+  vd_other_percent: z.number().gt(0).max(20).optional(),
+  final_circuit_limit_a: z.number().gt(0).optional(),
+});
+
+export const BoardSchema = z.strictObject({
+  id: word('a board id, e.g. DB1'),
+  location: word('where the board is').optional(),
+  zdb_ohm: quantity('ohm').optional(),
+  pfc_ka: quantity('kiloampere').optional(),
+});
+
+export const ProjectFileSchema = z.strictObject({
+  title: word('the job title'),
+  client: Party,
+  site: z.strictObject({ address: word('the site address') }),
+  installer: z.strictObject({
+    firm: word('the firm'),
+    address: word('an address').optional(),
+    contact: word('a contact').optional(),
+  }),
+  dates: z.strictObject({ started: isoDate.optional(), completed: isoDate.optional() }).default({}),
+  supply: SupplySchema,
+  rules: RulesSchema.default({ set: 'iec-60364' }),
+  boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' }),
+});
+
+export type ProjectFile = z.output<typeof ProjectFileSchema>;
+export type Supply = ProjectFile['supply'];
+export type RuleOverrides = ProjectFile['rules'];
+export type Board = ProjectFile['boards'][number];
+
+// ---------------------------------------------------------------- circuits.csv
+
+export const KINDS = ['lighting', 'power', 'heating', 'motor', 'other'] as const;
+export const METHODS = ['A1', 'A2', 'B1', 'B2', 'C', 'D', 'E', 'F'] as const;
+export const RCD_TYPES = ['AC', 'A', 'F', 'B', 'AC-S', 'A-S', 'F-S', 'B-S'] as const;
+
+export const CircuitSchema = z.object({
+  board: word('the board id'),
+  ref: word('the circuit reference'),
+  description: word('what the circuit supplies'),
+  kind: choice(KINDS, 'the kind of circuit'),
+  ib_a: quantity('ampere'),
+  device: choice(DEVICE_CODES, 'a device code'),
+  rating_a: quantity('ampere', { positive: true }),
+  live_mm2: quantity('mm2', { positive: true }),
+  cpc_mm2: quantity('mm2', { positive: true }),
+  length_m: quantity('metre', { positive: true }),
+  method: choice(METHODS, 'an installation reference method'),
+  phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
+  breaking_ka: quantity('kiloampere', { positive: true }).optional(),
+  rcd_ma: quantity('milliampere', { positive: true }).optional(),
+  rcd_type: choice(RCD_TYPES, 'an RCD type').optional(),
+  insulation: choice(['pvc70', 'xlpe90'] as const, 'the cable insulation').default('pvc70'),
+  conductor: choice(['cu', 'al'] as const, 'the conductor material').default('cu'),
+  cpc_in_cable: yesNo('whether the cpc is a core of the cable').default(true),
+  ambient_c: quantity('celsius').default(30),
+  grouped: quantity('count', { min: 1 }).default(1),
+  insulation_mm: quantity('metre').default(0),
+  ring: yesNo('whether this is a ring final circuit').default(false),
+  disconnect_s: quantity('second', { positive: true }).optional(),
+  notes: z.string().optional(),
+});
+
+export type Circuit = z.output<typeof CircuitSchema>;
+export const CIRCUIT_REQUIRED = ['board', 'ref', 'description', 'kind', 'ib_a', 'device', 'rating_a',
+  'live_mm2', 'cpc_mm2', 'length_m', 'method'] as const;
+export const CIRCUIT_COLUMNS = Object.keys(CircuitSchema.shape);
+
+// ---------------------------------------------------------------- readings/*.csv
+
+/** Measured fields and their quantity: the value is kept in the unit the name says. */
+export const MEASURED = {
+  r1r2_ohm: 'ohm',
+  ring_r1_ohm: 'ohm',
+  ring_rn_ohm: 'ohm',
+  ring_r2_ohm: 'ohm',
+  ir_ll_mohm: 'megohm',
+  ir_le_mohm: 'megohm',
+  ir_test_v: 'volt',
+  zs_ohm: 'ohm',
+  rcd_1x_ms: 'millisecond',
+  rcd_5x_ms: 'millisecond',
+} as const satisfies Record<string, Quantity>;
+export type MeasuredField = keyof typeof MEASURED;
+
+export const OUTCOMES = ['ok', 'fail', 'n/a', 'not-tested'] as const;
+export type Outcome = (typeof OUTCOMES)[number];
+
+const outcome = (what: string) => choice(OUTCOMES, what);
+
+export const ReadingRowSchema = z.object({
+  board: word('the board id'),
+  ref: word('the circuit reference'),
+  ...(Object.fromEntries(Object.entries(MEASURED).map(([k, q]) => [k, reading(q).optional()])) as Record<
+    MeasuredField,
+    z.ZodOptional<ReturnType<typeof reading>>
+  >),
+  polarity: outcome('the polarity result').optional(),
+  rcd_button: outcome('the RCD test-button result').optional(),
+  tested_by: z.string().optional(),
+  notes: z.string().optional(),
+});
+
+export type ReadingRow = z.output<typeof ReadingRowSchema>;
+export const READING_COLUMNS = Object.keys(ReadingRowSchema.shape);
+export type ReadingField = Exclude<keyof ReadingRow, 'board' | 'ref'>;

@@ -1,0 +1,142 @@
+// Parsing of the values written in job files: a number with an optional unit ("0.84",
+// "0.84 Ω", "250 MΩ"), an over-range reading (">999"), "n/a" or "not-tested".
+//
+// Every field has a quantity; its value is stored in the unit its name says (`zs_ohm` in ohms,
+// `ir_le_mohm` in megohms, `rcd_1x_ms` in milliseconds). A unit written in the cell is
+// converted to that unit; a unit of another quantity is an error, never a guess.
+
+export type Quantity =
+  | 'ohm'
+  | 'megohm'
+  | 'volt'
+  | 'ampere'
+  | 'milliampere'
+  | 'kiloampere'
+  | 'millisecond'
+  | 'second'
+  | 'mm2'
+  | 'metre'
+  | 'celsius'
+  | 'count';
+
+/** A parsed cell. `at-least` is an instrument's over-range reading: a lower bound. */
+export type Reading =
+  | { kind: 'value'; value: number }
+  | { kind: 'at-least'; value: number }
+  | { kind: 'n/a' }
+  | { kind: 'not-tested' };
+
+interface QuantityInfo {
+  /** how the quantity is named in messages */
+  words: string;
+  /** the unit symbol shown after a value */
+  symbol: string;
+  /** accepted unit spellings (lower case, no spaces) and the factor to the field's unit */
+  units: Record<string, number>;
+  /** a negative value is impossible */
+  nonNegative: boolean;
+}
+
+const OHM = 'Ω';
+
+/** Spellings of "<prefix>ohm" (case matters for the prefix: m is milli, M is mega). */
+function ohms(prefix: string, factor: number): Record<string, number> {
+  const words = ['Ω', '\u2126', 'ohm', 'ohms', 'Ohm', 'Ohms', 'OHM'];
+  return Object.fromEntries(words.map((w) => [`${prefix}${w}`, factor]));
+}
+
+export const QUANTITIES: Record<Quantity, QuantityInfo> = {
+  ohm: {
+    words: 'a resistance in ohms',
+    symbol: OHM,
+    units: { ...ohms('', 1), ...ohms('m', 0.001), ...ohms('k', 1000) },
+    nonNegative: true,
+  },
+  megohm: {
+    words: 'an insulation resistance in megohms',
+    symbol: 'MΩ',
+    units: { ...ohms('M', 1), ...ohms('meg', 1), ...ohms('mega', 1), ...ohms('G', 1000), ...ohms('k', 0.001) },
+    nonNegative: true,
+  },
+  volt: { words: 'a voltage in volts', symbol: 'V', units: { V: 1, v: 1, kV: 1000 }, nonNegative: true },
+  ampere: { words: 'a current in amperes', symbol: 'A', units: { A: 1, a: 1, kA: 1000, mA: 0.001 }, nonNegative: true },
+  milliampere: { words: 'a current in milliamperes', symbol: 'mA', units: { mA: 1, ma: 1, A: 1000 }, nonNegative: true },
+  kiloampere: { words: 'a current in kiloamperes', symbol: 'kA', units: { kA: 1, ka: 1, KA: 1, A: 0.001 }, nonNegative: true },
+  // A seconds unit in a milliseconds field is refused (see parseCell): a slip of a factor 1000.
+  millisecond: { words: 'a time in milliseconds', symbol: 'ms', units: { ms: 1 }, nonNegative: true },
+  second: { words: 'a time in seconds', symbol: 's', units: { s: 1, ms: 0.001 }, nonNegative: true },
+  mm2: { words: 'a cross-section in mm²', symbol: 'mm²', units: { 'mm²': 1, mm2: 1 }, nonNegative: true },
+  metre: { words: 'a length in metres', symbol: 'm', units: { m: 1 }, nonNegative: true },
+  celsius: { words: 'a temperature in °C', symbol: '°C', units: { '°C': 1, C: 1, degC: 1 }, nonNegative: false },
+  count: { words: 'a whole number', symbol: '', units: {}, nonNegative: true },
+};
+
+export type CellResult = { ok: true; reading: Reading } | { ok: false; message: string };
+
+const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
+const DECIMAL_COMMA = /^[+-]?\d+,\d+\s*\S*$/;
+
+/** Parse one cell of the given quantity. An empty cell is the caller's business (not given). */
+export function parseCell(text: string, quantity: Quantity): CellResult {
+  const info = QUANTITIES[quantity];
+  const raw = text.trim();
+  const lower = raw.toLowerCase();
+  if (lower === 'n/a' || lower === 'na') return { ok: true, reading: { kind: 'n/a' } };
+  if (lower === 'not-tested' || lower === 'not tested' || lower === 'nt') {
+    return { ok: true, reading: { kind: 'not-tested' } };
+  }
+  const bound = raw.startsWith('>');
+  const body = bound ? raw.slice(1).trim() : raw;
+  if (DECIMAL_COMMA.test(body)) {
+    const fixed = body.replace(',', '.');
+    return { ok: false, message: `found "${raw}" with a decimal comma; write a decimal point, e.g. "${bound ? '>' : ''}${fixed}"` };
+  }
+  const m = NUMBER.exec(body);
+  if (!m) {
+    return {
+      ok: false,
+      message: `found "${raw}"; expected ${info.words} (e.g. "${example(quantity)}"), ">N" for an over-range reading, "n/a" or "not-tested"`,
+    };
+  }
+  let value = Number(m[1]);
+  const unit = (m[2] ?? '').replace(/\s+/g, '');
+  if (unit !== '') {
+    if (quantity === 'millisecond' && (unit === 's' || unit === 'sec')) {
+      return { ok: false, message: `found "${raw}", a time in seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };
+    }
+    const factor = info.units[unit];
+    if (factor === undefined) {
+      return { ok: false, message: `found "${raw}": the unit "${m[2]}" does not fit here; expected ${info.words}` };
+    }
+    value *= factor;
+  }
+  if (quantity === 'millisecond' && unit === '' && value > 0 && value < 1) {
+    return { ok: false, message: `found "${raw}", which looks like seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };
+  }
+  if (info.nonNegative && value < 0) {
+    return { ok: false, message: `found "${raw}"; ${info.words.replace(/^an? /, 'a ')} cannot be negative` };
+  }
+  if (quantity === 'count' && !Number.isInteger(value)) {
+    return { ok: false, message: `found "${raw}"; expected a whole number` };
+  }
+  return { ok: true, reading: bound ? { kind: 'at-least', value } : { kind: 'value', value } };
+}
+
+function example(q: Quantity): string {
+  const samples: Record<Quantity, string> = {
+    ohm: '0.84', megohm: '250', volt: '500', ampere: '32', milliampere: '30', kiloampere: '6',
+    millisecond: '28', second: '0.4', mm2: '2.5', metre: '18', celsius: '30', count: '1',
+  };
+  return samples[q];
+}
+
+/** A number for messages and tables: `sig` significant digits, whole numbers kept whole. */
+export function fmt(n: number, sig = 3): string {
+  if (!Number.isFinite(n)) return String(n);
+  if (Math.abs(n) >= 10 ** sig) return String(Math.round(n));
+  return String(Number(n.toPrecision(sig)));
+}
+
+export function symbolOf(q: Quantity): string {
+  return QUANTITIES[q].symbol;
+}

@@ -1,0 +1,171 @@
+// Raw records → the validated Project. Every problem is collected (never only the first) and
+// located as file:row:column, in words a site electrician understands.
+import type { z } from 'zod';
+import type { LocatedError, RawJob, RawTable } from '../load/raw.js';
+import {
+  CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, CircuitSchema, ProjectFileSchema, READING_COLUMNS, ReadingRowSchema,
+  type Circuit, type ProjectFile,
+} from './schema.js';
+import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
+
+export interface CircuitRecord extends Circuit {
+  /** line of the circuit in circuits.csv */
+  row: number;
+}
+
+export interface Project {
+  /** the job folder's name */
+  name: string;
+  file: ProjectFile;
+  circuits: CircuitRecord[];
+  readings: Map<string, CircuitReadings>;
+  sessions: { date: string; label: string; file: string }[];
+  notes: string | null;
+}
+
+export type Validation = { ok: true; project: Project } | { ok: false; errors: LocatedError[] };
+
+function describe(issue: z.core.$ZodIssue): string {
+  return issue.message;
+}
+
+function yamlErrors(job: RawJob): { file: ProjectFile | null; errors: LocatedError[] } {
+  const doc = job.project;
+  if (!doc) return { file: null, errors: [] };
+  const parsed = ProjectFileSchema.safeParse(doc.data);
+  if (parsed.success) return { file: parsed.data, errors: [] };
+  const errors: LocatedError[] = [];
+  for (const issue of parsed.error.issues) {
+    const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) {
+        const where = [...path, key].join('.');
+        errors.push({ ...doc.positionOf([...path, key]), message: `${where}: unknown field; check its spelling against CONTRACT.md` });
+      }
+      continue;
+    }
+    const where = path.length > 0 ? `${path.join('.')}: ` : '';
+    errors.push({ ...doc.positionOf(path), message: `${where}${describe(issue)}` });
+  }
+  return { file: null, errors };
+}
+
+/** Parse every row of a table with a zod schema; unknown and missing columns reported once. */
+function tableRows<S extends z.ZodType>(
+  table: RawTable,
+  schema: S,
+  known: readonly string[],
+  required: readonly string[],
+  errors: LocatedError[],
+): { row: number; values: z.output<S> }[] {
+  const headerRow = 1;
+  const names = new Set(table.header.map((h) => h.text));
+  for (const h of table.header) {
+    if (h.text !== '' && !known.includes(h.text)) {
+      errors.push({ file: table.file, row: headerRow, column: h.column, message: `unknown column "${h.text}"; the columns packsmith reads are: ${known.join(', ')}` });
+    }
+  }
+  const missing = required.filter((r) => !names.has(r));
+  if (missing.length > 0) {
+    errors.push({ file: table.file, row: headerRow, column: 1, message: `missing column${missing.length > 1 ? 's' : ''} ${missing.map((m) => `"${m}"`).join(', ')}` });
+  }
+  const out: { row: number; values: z.output<S> }[] = [];
+  for (const r of table.rows) {
+    const input = Object.fromEntries(Object.entries(r.cells).map(([k, c]) => [k, c.text]));
+    const parsed = schema.safeParse(input);
+    if (parsed.success) {
+      out.push({ row: r.row, values: parsed.data });
+      continue;
+    }
+    for (const issue of parsed.error.issues) {
+      const field = String(issue.path[0] ?? '');
+      if (missing.includes(field)) continue; // already reported at the header
+      const column = r.cells[field]?.column ?? table.header.find((h) => h.text === field)?.column ?? 1;
+      errors.push({ file: table.file, row: r.row, column, message: `${field}: ${describe(issue)}` });
+    }
+  }
+  return out;
+}
+
+export function validate(job: RawJob): Validation {
+  const errors: LocatedError[] = [...job.errors];
+  const { file, errors: yErrors } = yamlErrors(job);
+  errors.push(...yErrors);
+
+  const circuits: CircuitRecord[] = [];
+  const known = new Set<string>();
+  if (job.circuits) {
+    const table = job.circuits;
+    const boards = boardIds(job);
+    // Identity first, on the raw cells, so a row with other mistakes is still checked.
+    const seen = new Map<string, number>();
+    const duplicate = new Set<number>();
+    for (const r of table.rows) {
+      const board = r.cells.board?.text;
+      const ref = r.cells.ref?.text;
+      if (board && boards && !boards.has(board)) {
+        errors.push({ file: table.file, row: r.row, column: r.cells.board!.column, message: `board "${board}" is not listed under boards in project.yaml (listed: ${[...boards].join(', ')})` });
+      }
+      if (!board || !ref) continue;
+      const key = circuitKey(board, ref);
+      const first = seen.get(key);
+      if (first !== undefined) {
+        errors.push({ file: table.file, row: r.row, column: r.cells.ref!.column, message: `circuit ${ref} on ${board} is listed twice (also row ${first})` });
+        duplicate.add(r.row);
+      } else seen.set(key, r.row);
+      known.add(key);
+    }
+    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors)) {
+      if (!duplicate.has(row)) circuits.push({ ...values, row });
+    }
+  }
+
+  const sessionRows: SessionRow[] = [];
+  for (const s of job.sessions) {
+    const seen = new Map<string, number>();
+    const skip = new Set<number>();
+    for (const r of s.table.rows) {
+      const board = r.cells.board?.text;
+      const ref = r.cells.ref?.text;
+      if (!board || !ref) continue;
+      const key = circuitKey(board, ref);
+      const first = seen.get(key);
+      if (job.circuits && !known.has(key)) {
+        errors.push({ file: s.table.file, row: r.row, column: r.cells.ref!.column, message: `no circuit ${ref} on board ${board} in circuits.csv` });
+        skip.add(r.row);
+      } else if (first !== undefined) {
+        errors.push({ file: s.table.file, row: r.row, column: r.cells.ref!.column, message: `circuit ${ref} on ${board} appears twice in this session (also row ${first}); one row per circuit per session` });
+        skip.add(r.row);
+      } else seen.set(key, r.row);
+    }
+    for (const { row, values } of tableRows(s.table, ReadingRowSchema, READING_COLUMNS, ['board', 'ref'], errors)) {
+      if (!skip.has(row)) sessionRows.push({ date: s.date, file: s.table.file, row, values });
+    }
+  }
+
+  if (errors.length > 0 || !file) return { ok: false, errors: sortErrors(errors, job) };
+  return {
+    ok: true,
+    project: {
+      name: job.name,
+      file,
+      circuits,
+      readings: mergeSessions(sessionRows),
+      sessions: job.sessions.map((s) => ({ date: s.date, label: s.label, file: s.table.file })),
+      notes: job.notes?.text ?? null,
+    },
+  };
+}
+
+/** Board ids as written in project.yaml, even when other parts of it are invalid. */
+function boardIds(job: RawJob): Set<string> | null {
+  const boards = (job.project?.data as { boards?: unknown } | null)?.boards;
+  if (!Array.isArray(boards)) return null;
+  return new Set(boards.map((b) => String((b as { id?: unknown } | null)?.id ?? '')).filter((id) => id !== ''));
+}
+
+function sortErrors(errors: LocatedError[], job: RawJob): LocatedError[] {
+  const order = ['project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
+  const rank = (f: string) => (order.indexOf(f) === -1 ? order.length : order.indexOf(f));
+  return [...errors].sort((a, b) => rank(a.file) - rank(b.file) || a.row - b.row || a.column - b.column);
+}
