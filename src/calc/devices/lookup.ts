@@ -1,0 +1,42 @@
+// Device → its characteristic, built once per code and rating from the reference tables.
+import { DEVICE_STANDARD, type DeviceCode } from '../../reference/device-codes.js';
+import type { BreakerType } from '../../reference/circuit-breakers.js';
+import { ratingProblem } from '../../model/device-rating.js';
+import { breakerCharacteristic } from './breakers.js';
+import { bs3036Characteristic, bs88Part2Characteristic, bs88Part3Characteristic } from './fuses.js';
+import type { Characteristic } from './characteristic.js';
+
+export interface Device {
+  code: DeviceCode;
+  rating_a: number;
+}
+
+/** The B/C/D type of a circuit-breaker code, or null for a fuse. */
+export function breakerType(code: DeviceCode): BreakerType | null {
+  const m = /^(?:mcb|rcbo):([BCD])$/.exec(code);
+  return m ? (m[1] as BreakerType) : null;
+}
+
+function build({ code, rating_a }: Device): Characteristic | null {
+  if (ratingProblem(code, rating_a) !== null) return null;
+  const type = breakerType(code);
+  if (type) return breakerCharacteristic(type, rating_a, DEVICE_STANDARD[code]);
+  switch (code) {
+    case 'fuse:gG': return bs88Part2Characteristic(rating_a);
+    case 'fuse:bs88-3': return bs88Part3Characteristic(rating_a);
+    case 'fuse:bs3036': return bs3036Characteristic(rating_a);
+    default: return null;
+  }
+}
+
+const built = new Map<string, Characteristic | null>();
+
+/**
+ * The device's characteristic, or null where the family does not make the rating or the library
+ * holds no published points for it (then every query answers null: never a guess).
+ */
+export function characteristic(device: Device): Characteristic | null {
+  const key = `${device.code} ${device.rating_a}`;
+  if (!built.has(key)) built.set(key, build(device));
+  return built.get(key)!;
+}

@@ -1,0 +1,77 @@
+// The queries on a device's characteristic. All pure; null where the library cannot answer.
+import { fmt, type Reading } from '../../model/units.js';
+import { INSTANTANEOUS_TIME_S } from '../../reference/circuit-breakers.js';
+import { currentFor, show, timeAt } from './curve.js';
+import { breakerType, characteristic, type Device } from './lookup.js';
+
+export interface MaxZs {
+  /** current that operates the device within the required time */
+  ia_a: number;
+  max_zs_ohm: number;
+  basis: string;
+}
+
+/** Max Zs = U0 × Cmin / Ia for the required disconnection time, or null where no current is known to do it. */
+export function maxZs(device: Device, requiredS: number, u0: number, cmin: number): MaxZs | null {
+  const c = characteristic(device);
+  const ia = c ? currentFor(c.slowest, requiredS) : null;
+  if (!ia) return null;
+  return {
+    ia_a: ia.current_a,
+    max_zs_ohm: (u0 * cmin) / ia.current_a,
+    basis: `Ia = ${show(ia.current_a)} A, the current that operates it within ${fmt(requiredS)} s (${ia.how})`,
+  };
+}
+
+/** Operating times at a current: slowest null = not known to operate; fastest null = no fastest edge here. */
+export function operatingTime(device: Device, currentA: number): { slowest_s: number | null; fastest_s: number | null } {
+  const c = characteristic(device);
+  if (!c) return { slowest_s: null, fastest_s: null };
+  return { slowest_s: timeAt(c.slowest, currentA), fastest_s: c.fastest ? timeAt(c.fastest, currentA) : null };
+}
+
+/** Ia: the smallest current whose slowest operating time is within `timeS`. */
+export function currentForTime(device: Device, timeS: number): number | null {
+  const c = characteristic(device);
+  return c ? currentFor(c.slowest, timeS)?.current_a ?? null : null;
+}
+
+/** I²t let through at a fault current, for the adiabatic check; null where the device is not known to operate. */
+export function energyAt(device: Device, currentA: number): { i2t_a2s: number; basis: string } | null {
+  const c = characteristic(device);
+  const t = c ? timeAt(c.slowest, currentA) : null;
+  if (!c || t === null) return null;
+  const i2t = currentA ** 2 * t;
+  const shown = `${show(i2t)} A²s`;
+  if (breakerType(device.code) && t <= INSTANTANEOUS_TIME_S) {
+    return {
+      i2t_a2s: i2t,
+      basis: `I²t = ${show(currentA)}² × ${INSTANTANEOUS_TIME_S} s = ${shown}: the breaker opens within ${INSTANTANEOUS_TIME_S} s at this current and no current limiting is credited (assumption: a manufacturer's let-through I²t, lower, may replace it)`,
+    };
+  }
+  const last = c.slowest.points[c.slowest.points.length - 1]!;
+  if (currentA > last.current_a) {
+    return {
+      i2t_a2s: i2t,
+      basis: `I²t = ${shown}, held at its value at ${show(last.current_a)} A in ${show(last.time_s)} s (${last.source}): the fuse opens faster here and its let-through is taken as no more than that (assumption)`,
+    };
+  }
+  return { i2t_a2s: i2t, basis: `I²t = ${show(currentA)}² × ${show(t)} s = ${shown} (slowest operating time)` };
+}
+
+/**
+ * From a measured Zs: the earth fault current U0 × Cmin / Zs and the slowest operating time at it
+ * (null: not known to operate). Empty where Zs is not a plain reading or the device has no
+ * characteristic, so no derived value pretends to know.
+ */
+export function measuredFault(
+  device: Device, zs: Reading | undefined, u0: number, cmin: number,
+): { fault_current_a?: number; disconnect_s?: number | null } {
+  if (zs?.kind !== 'value' || !(zs.value > 0)) return {};
+  const current = (u0 * cmin) / zs.value;
+  if (!characteristic(device)) return { fault_current_a: significant(current) };
+  const t = operatingTime(device, current).slowest_s;
+  return { fault_current_a: significant(current), disconnect_s: t === null ? null : significant(t) };
+}
+
+const significant = (n: number): number => Number(n.toPrecision(3));
