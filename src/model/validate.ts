@@ -7,6 +7,7 @@ import {
   type Circuit, type ProjectFile,
 } from './schema.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
+import { ratingProblem } from './device-rating.js';
 
 export interface CircuitRecord extends Circuit {
   /** line of the circuit in circuits.csv */
@@ -116,7 +117,11 @@ export function validate(job: RawJob): Validation {
       known.add(key);
     }
     for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors)) {
-      if (!duplicate.has(row)) circuits.push({ ...values, row });
+      const problem = ratingProblem(values.device, values.rating_a);
+      if (problem) {
+        const column = table.rows.find((r) => r.row === row)?.cells.rating_a?.column ?? 1;
+        errors.push({ file: table.file, row, column, message: `rating_a: ${problem}` });
+      } else if (!duplicate.has(row)) circuits.push({ ...values, row });
     }
   }
 

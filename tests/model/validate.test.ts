@@ -13,7 +13,7 @@ describe('validating a job folder', () => {
 
   it('rejects the broken job and reports every problem at once', () => {
     expect(v.ok).toBe(false);
-    expect(lines.length).toBeGreaterThanOrEqual(17);
+    expect(lines.length).toBeGreaterThanOrEqual(18);
   });
 
   it.each([
@@ -27,6 +27,7 @@ describe('validating a job folder', () => {
     ['circuits.csv:4:11: method: found "Z"', 'an unknown reference method'],
     ['circuits.csv:5:2: circuit 1 on DB1 is listed twice', 'a duplicated circuit'],
     ['circuits.csv:5:10: length_m: found "-5"; a length in metres cannot be negative', 'a negative length'],
+    ['circuits.csv:6:7: rating_a: found 25 A; fuse:bs3036 (BS 3036) is made in 5, 15, 20, 30, 45, 60, 100 A; two or three elements twisted together', 'a rating the family does not make'],
     ['readings/2026-11-13.csv:2:4: ir_le_mohm: found "250 kV"', 'a unit that does not fit the field'],
     ['readings/2026-11-13.csv:2:6: rcd_1x_ms: found "0.028", which looks like seconds', 'seconds where ms are expected'],
     ['readings/2026-11-13.csv:3:3: zs_ohm: found "-0.2"; a resistance in ohms cannot be negative', 'a negative resistance'],
