@@ -1,7 +1,7 @@
 // Project → Assessment. Pure: no file system, clock or network.
 import type { Project } from '../model/validate.js';
 import { circuitKey } from '../model/readings.js';
-import { maxZs } from './devices/index.js';
+import { maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { requiredDisconnection, resolveRules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
@@ -16,19 +16,21 @@ export function assess(project: Project): Assessment {
     const required = requiredDisconnection(file.supply.earthing, rules.u0_v, circuit.rating_a, rules, circuit.disconnect_s);
     const device = { code: circuit.device, rating_a: circuit.rating_a };
     const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
+    const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
     const ctx: CircuitContext = {
       circuit,
       board,
       supply: file.supply,
       rules,
-      readings: project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {},
+      readings,
       derived: {
         max_zs_ohm: mz ? round(mz.max_zs_ohm, 3) : null,
         required_disconnect_s: required.seconds,
+        ...measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin),
       },
       maxZsBasis: mz
         ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
-        : `the device library has no characteristic for ${circuit.device} ${circuit.rating_a} A at ${required.seconds} s yet`,
+        : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,
     };
     return {
       board: circuit.board,
