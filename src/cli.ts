@@ -6,10 +6,12 @@ import { formatError } from './load/raw.js';
 import { assessmentText } from './render/text.js';
 import { build, defaultJobs } from './build.js';
 import { NO_CHROMIUM_HELP } from './print/browser.js';
+import { deviceCommand } from './commands/device.js';
 
 const USAGE = `usage:
   packsmith build [job-folder...] [--out DIR]   render draft packs (HTML and PDF) into DIR (default out/)
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
+  packsmith device <code> <rating> [--at AMPS] [--within SECONDS] [--u0 V] [--cmin C] [--json]   look up a device's characteristic
 `;
 
 type Exit = 0 | 1 | 2;
@@ -55,6 +57,7 @@ async function main(argv: string[]): Promise<Exit> {
   switch (command) {
     case 'check': return check(rest);
     case 'build': return buildCommand(rest);
+    case 'device': return deviceCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;
