@@ -1,0 +1,137 @@
+// A device's time-current band as a small standalone SVG: log-log, 1 A–10 kA against
+// 0.01 s–10,000 s, a decade grid, the band between the fastest and slowest edges, a marker at the
+// fault current with its operating time and a dashed line at the required time. Same input, same
+// bytes: every number is written with a fixed number of decimals, nothing depends on the clock.
+import { scaleLog } from 'd3-scale';
+import { characteristic, operatingTime, type Device, type Edge } from '../calc/devices/index.js';
+import { fmt } from '../model/units.js';
+
+export interface CurveSnippetOptions {
+  device: Device;
+  faultCurrentA?: number | null;
+  requiredS?: number | null;
+  title?: string;
+}
+
+const WIDTH = 360;
+const HEIGHT = 260;
+const M = { left: 50, right: 14, top: 12, bottom: 38 };
+const PW = WIDTH - M.left - M.right;
+const PH = HEIGHT - M.top - M.bottom;
+const I_MIN = 1;
+const I_MAX = 1e4;
+const T_MIN = 0.01;
+const T_MAX = 1e4;
+
+const x = scaleLog().domain([I_MIN, I_MAX]).range([0, PW]);
+const y = scaleLog().domain([T_MIN, T_MAX]).range([PH, 0]);
+
+/** A coordinate with one decimal, never "-0.0". */
+const c = (v: number): string => (Math.abs(v) < 0.05 ? '0.0' : v.toFixed(1));
+
+const escape = (s: string): string =>
+  s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+
+/** Tick label of a decade: 0.01 … 1000, then 10k. */
+const decadeLabel = (v: number): string => (v >= 1e4 ? `${fmt(v / 1000)}k` : fmt(v));
+
+/** The edge as (current, time) pairs running to the plot's edges: up at its first current, out along its tail. */
+function edgePath(edge: Edge): [number, number][] {
+  const pts: [number, number][] = edge.points.map((p) => [p.current_a, p.time_s]);
+  const [i0] = pts[0]!;
+  const [il, tl] = pts[pts.length - 1]!;
+  pts.unshift([i0, T_MAX]);
+  if (edge.tail === 'none') pts.push([il, T_MIN]);
+  else if (il < I_MAX) pts.push([I_MAX, edge.tail === 'flat' ? tl : tl * (il / I_MAX) ** 2]);
+  return pts;
+}
+
+const toXY = (pts: [number, number][]): string => pts.map(([i, t]) => `${c(x(i))},${c(y(t))}`).join(' ');
+
+function grid(): string[] {
+  const out: string[] = [];
+  for (const i of x.ticks(4)) {
+    out.push(`<line class="grid" data-current-a="${fmt(i)}" x1="${c(x(i))}" y1="0.0" x2="${c(x(i))}" y2="${c(PH)}"/>`);
+    out.push(`<text class="tick" x="${c(x(i))}" y="${c(PH + 12)}" text-anchor="middle">${decadeLabel(i)}</text>`);
+  }
+  for (const t of y.ticks(6)) {
+    out.push(`<line class="grid" data-time-s="${fmt(t)}" x1="0.0" y1="${c(y(t))}" x2="${c(PW)}" y2="${c(y(t))}"/>`);
+    out.push(`<text class="tick" x="-4.0" y="${c(y(t) + 3)}" text-anchor="end">${decadeLabel(t)}</text>`);
+  }
+  return out;
+}
+
+export function curveSnippet(opts: CurveSnippetOptions): string {
+  const { device } = opts;
+  const name = `${device.code} ${fmt(device.rating_a)} A`;
+  const ch = characteristic(device);
+  const title = opts.title ?? `${name}: time-current characteristic`;
+  const desc: string[] = [];
+  const plot: string[] = [];
+  const over: string[] = [];
+
+  if (ch) {
+    const slow = edgePath(ch.slowest);
+    if (ch.fastest) {
+      const fast = edgePath(ch.fastest);
+      const [fl, tl] = fast[fast.length - 1]!;
+      const band = [...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...slow.reverse()];
+      plot.push(`<polygon class="band" points="${toXY(band)}"/>`);
+      plot.push(`<polyline class="fastest" points="${toXY(fast)}"/>`);
+      slow.reverse();
+      desc.push(`The shaded band lies between the fastest and the slowest operating times of ${ch.source}.`);
+    } else {
+      desc.push(`The line is the slowest operating time of ${ch.source}; no fastest edge is published.`);
+    }
+    plot.push(`<polyline class="slowest" points="${toXY(slow)}"/>`);
+  } else {
+    desc.push(`The device library holds no published time-current points for ${name}.`);
+  }
+
+  const required = opts.requiredS ?? null;
+  if (required !== null && required >= T_MIN && required <= T_MAX) {
+    const yr = c(y(required));
+    plot.push(`<line class="required" x1="0.0" y1="${yr}" x2="${c(PW)}" y2="${yr}"/>`);
+    over.push(`<text class="note" x="${c(PW - 2)}" y="${c(y(required) - 3)}" text-anchor="end">${fmt(required)} s required</text>`);
+    desc.push(`The dashed line is the required disconnection time, ${fmt(required)} s.`);
+  }
+
+  const fault = opts.faultCurrentA ?? null;
+  if (fault !== null && fault > 0) {
+    const t = operatingTime(device, fault).slowest_s;
+    const shown = `${fmt(fault)} A`;
+    if (fault >= I_MIN && fault <= I_MAX) {
+      const xf = x(fault);
+      const yf = t === null ? 0 : Math.min(PH, Math.max(0, y(t)));
+      plot.push(`<line class="fault" x1="${c(xf)}" y1="${c(PH)}" x2="${c(xf)}" y2="${c(yf)}"/>`);
+      if (t !== null) over.push(`<circle class="marker" cx="${c(xf)}" cy="${c(yf)}" r="3.0"/>`);
+      const label = t === null ? `${shown}: not known to operate` : `${shown}: ${fmt(t)} s`;
+      const anchor = xf > PW / 2 ? 'end' : 'start';
+      over.push(`<text class="note" x="${c(xf + (anchor === 'end' ? -5 : 5))}" y="${c(Math.max(10, yf - 5))}" text-anchor="${anchor}">${escape(label)}</text>`);
+    }
+    desc.push(t === null
+      ? `At a fault current of ${shown} the device is not known to operate.`
+      : `At a fault current of ${shown} the slowest operating time is ${fmt(t)} s.`);
+  }
+
+  return [
+    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="sans-serif" font-size="9">`,
+    `<title>${escape(title)}</title>`,
+    `<desc>${escape(desc.join(' '))}</desc>`,
+    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
+      + '.slowest{fill:none;stroke:#1d3f66;stroke-width:1.5}.fastest{fill:none;stroke:#1d3f66;stroke-width:0.75}'
+      + '.required{stroke:#a33;stroke-width:1;stroke-dasharray:4 3}.fault{stroke:#333;stroke-width:0.75;stroke-dasharray:1 2}'
+      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}</style>',
+    `<g transform="translate(${M.left},${M.top})">`,
+    ...grid(),
+    `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,
+    ...plot,
+    '</svg>',
+    `<rect class="frame" x="0" y="0" width="${PW}" height="${PH}"/>`,
+    ...over,
+    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 28)}" text-anchor="middle">prospective fault current (A)</text>`,
+    `<text class="axis" transform="translate(-36,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
+    '</g>',
+    '</svg>',
+  ].join('\n');
+}
