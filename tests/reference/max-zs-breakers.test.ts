@@ -33,11 +33,14 @@ describe('max Zs of circuit-breakers at 0.4 s, U0 230 V, Cmin 0.95', () => {
     // IEC 60898-1 Table 7: within 0.1 s at the upper multiple; BS 7671 Table 41.3 heading: instantaneous operation
     for (const t of [0.1, 0.2, 0.4]) expect(zs('mcb:C', 20, t)).toBe(zs('mcb:C', 20, 0.4));
   });
-  it('gives B and C breakers above 32 A the instantaneous value at 5 s too', () => {
-    // BS 7671:2018 Table 41.3 applies to 0.4 s and 5 s; at 5 s the thermal region (120 s at 2.55 In,
-    // IEC 60898-1 Table 7) reaches only 12.5 In, above the B and C instantaneous multiples
-    roundsTo(zs('mcb:B', 40, 5), 1.09);
-    roundsTo(zs('mcb:C', 40, 5), 0.55);
+  it('gives every type and rating the instantaneous value at 5 s too', () => {
+    // BS 7671:2018 Table 41.3 applies to 0.4 s and 5 s alike: IEC 60898-1 Table 7 promises no trip
+    // faster than 60 s (120 s above 32 A) below the upper instantaneous multiple
+    for (const type of ['B', 'C', 'D'] as const) {
+      for (const rating of [6, 16, 32, 40, 63, 125]) expect(zs(`mcb:${type}`, rating, 5)).toBe(zs(`mcb:${type}`, rating, 0.4));
+    }
+    roundsTo(zs('mcb:C', 16, 5), 1.37);
+    roundsTo(zs('mcb:D', 40, 5), 0.27);
   });
   it('follows the formula for any U0 and Cmin', () => {
     // U0 × Cmin / Ia, physical definition of the loop impedance that lets Ia flow

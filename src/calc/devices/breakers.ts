@@ -12,11 +12,14 @@ export function breakerCharacteristic(type: BreakerType, ratingA: number, standa
   const m = AT_2_55.multiple;
   const table7 = `${standard} Table 7`;
   const what = `${type}${In}`;
+  // The slowest permitted edge is a staircase through the guaranteed points: the standard promises
+  // nothing faster between them, so verification takes no credit for the thermal release there.
   const slowest = checkedEdge({
     points: [
       { current_a: CONVENTIONAL.tripping * In, time_s: conventionalS, source: `${table7}: trips within ${conventionalS / 3600} h at ${CONVENTIONAL.tripping} In` },
+      { current_a: m * In, time_s: conventionalS, source: `${table7}: no faster trip promised below ${m} In` },
       { current_a: m * In, time_s: at255S, source: `${table7}: trips within ${at255S} s at ${m} In` },
-      { current_a: band.upper * In, time_s: at255S * (m / band.upper) ** 2, source: `thermal release at constant I²t from ${m} In (assumption)` },
+      { current_a: band.upper * In, time_s: at255S, source: `${table7}: no faster trip promised below ${band.upper} In` },
       { current_a: band.upper * In, time_s: INSTANTANEOUS_TIME_S, source: `type ${type} instantaneous trip within ${INSTANTANEOUS_TIME_S} s at ${band.upper} In, ${standard}` },
     ],
     tail: 'flat',

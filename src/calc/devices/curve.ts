@@ -15,7 +15,10 @@ export interface Point {
 export type Tail = 'i2t' | 'flat' | 'none';
 
 export interface Edge {
-  /** current never decreasing, time strictly decreasing; two points at one current make a vertical step */
+  /**
+   * current never decreasing, time never increasing, and never both equal: two points at one
+   * current make a vertical step, two at one time a flat step (no faster operation promised)
+   */
   points: readonly Point[];
   tail: Tail;
   /** what the tail is, for basis lines */
@@ -29,11 +32,14 @@ export function checkedEdge(edge: Edge, what: string): Edge {
   for (let i = 1; i < p.length; i++) {
     const a = p[i - 1]!;
     const b = p[i]!;
-    if (!(b.current_a >= a.current_a && b.time_s < a.time_s)) {
+    if (!(b.current_a >= a.current_a && b.time_s <= a.time_s) || (b.current_a === a.current_a && b.time_s === a.time_s)) {
       throw new Error(`${what}: ${b.current_a} A at ${b.time_s} s does not follow ${a.current_a} A at ${a.time_s} s`);
     }
     if (i >= 2 && b.current_a === a.current_a && a.current_a === p[i - 2]!.current_a) {
       throw new Error(`${what}: three points at ${a.current_a} A`);
+    }
+    if (i >= 2 && b.time_s === a.time_s && a.time_s === p[i - 2]!.time_s) {
+      throw new Error(`${what}: three points at ${a.time_s} s`);
     }
   }
   return edge;

@@ -10,12 +10,11 @@
 //   never relied on.
 //
 // Circuit-breakers, mcb (IEC 60898-1) and rcbo (IEC 61009-1, the same bands), from cold:
-// - slowest: 1.45 In within the conventional time (1 h, 2 h above 63 A); 2.55 In within 60 s
-//   (120 s above 32 A); from there to the upper instantaneous multiple k (B 5, C 10, D 20) at
-//   constant I²t — an assumption, and an upper bound for a thermal release, whose heat losses only
-//   make it slower at lower currents; at k In and above, within 0.1 s and no faster promise.
-//   So for 0.4 s every type answers Ia = k In (BS 7671 Table 41.3); for 5 s a C or D breaker may
-//   answer a current below k In, on its thermal region.
+// - slowest: a staircase through the guaranteed points — within the conventional time (1 h, 2 h
+//   above 63 A) from 1.45 In, within 60 s (120 s above 32 A) from 2.55 In, within 0.1 s from the
+//   upper instantaneous multiple k (B 5, C 10, D 20). The standard promises nothing faster between
+//   them, so no credit is taken for the thermal release: for any required time from 0.1 s up to
+//   60 s every type answers Ia = k In, as BS 7671 Table 41.3 does for 0.4 s and 5 s alike.
 // - fastest: no trip within the conventional time at 1.13 In, within 1 s at 2.55 In, within 0.1 s
 //   at the lower multiple (B 3, C 5, D 10); above that the instantaneous release may trip at once.
 // Fuses:
