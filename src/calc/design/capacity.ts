@@ -10,6 +10,7 @@ import {
 } from '../../reference/corrections.js';
 import type { Insulation, Material } from '../../reference/conductors.js';
 import { fmt } from '../../model/units.js';
+import type { Circuit } from '../../model/schema.js';
 
 export interface CapacityInput {
   material: Material;
@@ -88,4 +89,12 @@ export function capacity(input: CapacityInput): CapacityResult {
   ];
   const basis = `Iz = It ${fmt(it)} A${product} (${why.join('; ')})`;
   return { ok: true, capacity: { it_a: it, ca: step.factor, cg: g.factor, ci, iz_a: iz, table: column.table, basis } };
+}
+
+/** Iz of a circuit as circuits.csv describes it (2 loaded conductors single-phase, 3 three-phase). */
+export function capacityOf(c: Circuit): CapacityResult {
+  return capacity({
+    material: c.conductor, insulation: c.insulation, method: c.method, loaded: c.phases === 3 ? 3 : 2,
+    live_mm2: c.live_mm2, ambient_c: c.ambient_c, grouped: c.grouped, insulation_mm: c.insulation_mm,
+  });
 }

@@ -3,7 +3,7 @@
 import type { Board, Circuit, Supply } from '../../model/schema.js';
 import type { Rules } from '../rules.js';
 import { fmt } from '../../model/units.js';
-import { capacity, type CapacityResult } from './capacity.js';
+import { capacityOf, type CapacityResult } from './capacity.js';
 import { operatingTemp } from './conductor.js';
 import { r1r2, sourceImpedance, type R1R2, type SourceImpedance } from './impedance.js';
 import { voltageDrop, type VoltageDrop } from './voltage-drop.js';
@@ -29,16 +29,7 @@ export function design(circuit: Circuit, board: Board, supply: Supply, rules: Ru
   const lighting = circuit.kind === 'lighting';
   const limit = lighting ? rules.vd_lighting_percent : rules.vd_other_percent;
   return {
-    capacity: capacity({
-      material: circuit.conductor,
-      insulation: circuit.insulation,
-      method: circuit.method,
-      loaded: circuit.phases === 3 ? 3 : 2,
-      live_mm2: circuit.live_mm2,
-      ambient_c: circuit.ambient_c,
-      grouped: circuit.grouped,
-      insulation_mm: circuit.insulation_mm,
-    }),
+    capacity: capacityOf(circuit),
     r1r2Hot: hot,
     r1r2Cold: cold,
     source,
