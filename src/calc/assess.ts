@@ -3,6 +3,7 @@ import type { Project } from '../model/validate.js';
 import { circuitKey } from '../model/readings.js';
 import { maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
+import { design as designOf } from './design/index.js';
 import { requiredDisconnection, resolveRules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
@@ -17,6 +18,7 @@ export function assess(project: Project): Assessment {
     const device = { code: circuit.device, rating_a: circuit.rating_a };
     const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
+    const design = designOf(circuit, board, file.supply, rules);
     const ctx: CircuitContext = {
       circuit,
       board,
@@ -24,10 +26,15 @@ export function assess(project: Project): Assessment {
       rules,
       readings,
       derived: {
+        iz_a: design.capacity.ok ? round(design.capacity.capacity.iz_a, 2) : null,
         max_zs_ohm: mz ? round(mz.max_zs_ohm, 3) : null,
+        r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
+        zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
+        vd_percent: design.vd ? round(design.vd.percent, 2) : null,
         required_disconnect_s: required.seconds,
         ...measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin),
       },
+      design,
       maxZsBasis: mz
         ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
         : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,

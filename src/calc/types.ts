@@ -3,6 +3,7 @@ import type { Board, Supply } from '../model/schema.js';
 import type { CircuitRecord } from '../model/validate.js';
 import type { CircuitReadings } from '../model/readings.js';
 import type { Rules } from './rules.js';
+import type { Design } from './design/index.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
 export type Status = (typeof STATUSES)[number];
@@ -39,6 +40,8 @@ export interface CircuitContext {
   rules: Rules;
   readings: CircuitReadings;
   derived: Derived;
+  /** the circuit's design table (Iz, R1+R2, design Zs, voltage drop) */
+  design: Design;
   /** why max Zs is what it is (or why it is unknown) */
   maxZsBasis: string;
 }

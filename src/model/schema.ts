@@ -91,7 +91,8 @@ export const CircuitSchema = z.object({
   insulation: choice(['pvc70', 'xlpe90'] as const, 'the cable insulation').default('pvc70'),
   conductor: choice(['cu', 'al'] as const, 'the conductor material').default('cu'),
   cpc_in_cable: yesNo('whether the cpc is a core of the cable').default(true),
-  ambient_c: quantity('celsius').default(30),
+  // absent: the capacity table's reference, 30 °C air (20 °C ground for method D)
+  ambient_c: quantity('celsius').optional(),
   grouped: quantity('count', { min: 1 }).default(1),
   insulation_mm: quantity('metre').default(0),
   ring: yesNo('whether this is a ring final circuit').default(false),

@@ -74,7 +74,7 @@ describe('the check registry', () => {
   it('never passes a check that is not yet implemented', () => {
     const ctx = context({ ring: 'yes', rcd_ma: '30' }, { zs_ohm: '0.5', polarity: 'ok' });
     for (const [id, check] of CHECKS) {
-      if (['insulation', 'polarity', 'zs-measured'].includes(id)) continue;
+      if (['overload', 'voltage-drop', 'zs-design', 'insulation', 'polarity', 'zs-measured'].includes(id)) continue;
       expect(check(ctx).status).not.toBe('pass');
     }
   });

@@ -5,6 +5,7 @@ import { mergeSessions } from '../../src/model/readings.js';
 import { resolveRules } from '../../src/calc/rules.js';
 import { maxZs } from '../../src/calc/devices/index.js';
 import type { CircuitContext } from '../../src/calc/types.js';
+import { design } from '../../src/calc/design/index.js';
 
 export function context(
   circuit: Record<string, string> = {},
@@ -23,11 +24,12 @@ export function context(
   const mz = maxZs({ code: c.device, rating_a: c.rating_a }, required, rules.u0_v, rules.cmin);
   return {
     circuit: { ...c, row: 2 },
-    board: { id: 'DB1' },
+    board: { id: 'DB1', zdb_ohm: undefined },
     supply: s,
     rules,
     readings: merged.get('DB1/1') ?? {},
     derived: { max_zs_ohm: mz?.max_zs_ohm ?? null, required_disconnect_s: required },
+    design: design(c, { id: 'DB1' }, s, rules),
     maxZsBasis: mz?.basis ?? 'none',
   };
 }

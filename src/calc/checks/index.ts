@@ -2,13 +2,16 @@
 import type { Check, CheckId } from '../types.js';
 import { insulation } from './insulation.js';
 import { pending, rcdCheck, rcdTtCheck, ringCheck } from './pending.js';
+import { overload } from './overload.js';
 import { polarity } from './polarity.js';
+import { voltageDropCheck } from './voltage-drop.js';
+import { zsDesign } from './zs-design.js';
 import { zsMeasured } from './zs-measured.js';
 
 export const CHECKS: readonly (readonly [CheckId, Check])[] = [
-  ['overload', pending('overload', 'overload protection Ib ≤ In ≤ Iz')],
-  ['voltage-drop', pending('voltage-drop', 'voltage drop')],
-  ['zs-design', pending('zs-design', 'design Zs against max Zs')],
+  ['overload', overload],
+  ['voltage-drop', voltageDropCheck],
+  ['zs-design', zsDesign],
   ['disconnection', pending('disconnection', 'disconnection time at the design fault current')],
   ['adiabatic', pending('adiabatic', 'protective conductor size (adiabatic)')],
   ['breaking-capacity', pending('breaking-capacity', 'breaking capacity against the prospective fault current')],

@@ -1,0 +1,16 @@
+// Conductor resistance at any temperature: R(θ) = R20 × (1 + α20 (θ − 20)) (IEC 60287-1-1),
+// from the IEC 60228 maximum resistance at 20 °C.
+import { ALPHA20_PER_K, OPERATING_TEMP_C, R20_MOHM_PER_M, type Insulation, type Material } from '../../reference/conductors.js';
+
+/** mΩ/m at θ °C, or null where IEC 60228 has no such size for the material */
+export function resistance(material: Material, mm2: number, thetaC = 20): number | null {
+  const r20 = R20_MOHM_PER_M[material][mm2];
+  if (r20 === undefined) return null;
+  return r20 * (1 + ALPHA20_PER_K[material] * (thetaC - 20));
+}
+
+export const operatingTemp = (insulation: Insulation): number => OPERATING_TEMP_C[insulation];
+
+export function sizesOf(material: Material): number[] {
+  return Object.keys(R20_MOHM_PER_M[material]).map(Number).sort((a, b) => a - b);
+}

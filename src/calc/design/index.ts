@@ -1,0 +1,43 @@
+// A circuit's design table, as a designer would fill it in by hand: Iz, R1+R2 (at operating
+// temperature and at 20 °C), design Zs and voltage drop, each with the numbers behind it.
+import type { Board, Circuit, Supply } from '../../model/schema.js';
+import type { Rules } from '../rules.js';
+import { fmt } from '../../model/units.js';
+import { capacityOf, type CapacityResult } from './capacity.js';
+import { operatingTemp } from './conductor.js';
+import { r1r2, sourceImpedance, type R1R2, type SourceImpedance } from './impedance.js';
+import { voltageDrop, type VoltageDrop } from './voltage-drop.js';
+
+export interface Design {
+  capacity: CapacityResult;
+  /** R1+R2 at the insulation's maximum operating temperature */
+  r1r2Hot: R1R2 | null;
+  /** R1+R2 at 20 °C: what a continuity test should find */
+  r1r2Cold: R1R2 | null;
+  source: SourceImpedance | null;
+  zs: { ohm: number; basis: string } | null;
+  vd: VoltageDrop | null;
+  vdLimit: { percent: number; basis: string };
+}
+
+export function design(circuit: Circuit, board: Board, supply: Supply, rules: Rules): Design {
+  const theta = operatingTemp(circuit.insulation);
+  const hot = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, theta);
+  const cold = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, 20);
+  const source = sourceImpedance(board.zdb_ohm, supply.ze_ohm, board.id);
+  const zs = hot && source ? { ohm: source.ohm + hot.ohm, basis: `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω` } : null;
+  const lighting = circuit.kind === 'lighting';
+  const limit = lighting ? rules.vd_lighting_percent : rules.vd_other_percent;
+  return {
+    capacity: capacityOf(circuit),
+    r1r2Hot: hot,
+    r1r2Cold: cold,
+    source,
+    zs,
+    vd: voltageDrop({
+      material: circuit.conductor, live_mm2: circuit.live_mm2, length_m: circuit.length_m, ib_a: circuit.ib_a,
+      phases: circuit.phases, ring: circuit.ring, theta_c: theta, u0_v: rules.u0_v,
+    }),
+    vdLimit: { percent: limit, basis: `${limit} % for ${lighting ? 'lighting' : 'other uses'} (IEC 60364-5-52 Table G.52.1${rules.overrides.includes(lighting ? 'vd_lighting_percent' : 'vd_other_percent') ? ', overridden for this job' : ''})` },
+  };
+}

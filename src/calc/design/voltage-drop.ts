@@ -1,0 +1,34 @@
+// Voltage drop from conductor resistance at operating temperature (IEC 60364-5-52 Annex G):
+// single-phase u = 2 × L × z × Ib, balanced three-phase u = √3 × L × z × Ib, as a percentage of
+// U0 (single-phase) or of the line voltage √3 U0 (three-phase). z is the conductor resistance,
+// with the Annex G reactance 0.08 mΩ/m added in quadrature from 25 mm² (a conservative power
+// factor). A ring final circuit is taken with its load at the midpoint: a quarter of its length.
+import type { Material } from '../../reference/conductors.js';
+import { REACTANCE_FROM_MM2, REACTANCE_MOHM_PER_M } from '../../reference/voltage-drop.js';
+import { fmt } from '../../model/units.js';
+import { resistance } from './conductor.js';
+
+export interface VoltageDrop {
+  volts: number;
+  percent: number;
+  basis: string;
+}
+
+export function voltageDrop(opts: {
+  material: Material; live_mm2: number; length_m: number; ib_a: number; phases: number; ring: boolean; theta_c: number; u0_v: number;
+}): VoltageDrop | null {
+  const r = resistance(opts.material, opts.live_mm2, opts.theta_c);
+  if (r === null) return null;
+  const x = opts.live_mm2 >= REACTANCE_FROM_MM2 ? REACTANCE_MOHM_PER_M : 0;
+  const z = Math.hypot(r, x); // mΩ/m per conductor
+  const three = opts.phases === 3;
+  const b = three ? Math.sqrt(3) : 2;
+  const length = opts.ring ? opts.length_m / 4 : opts.length_m;
+  const volts = (b * length * z * opts.ib_a) / 1000;
+  const reference = three ? Math.sqrt(3) * opts.u0_v : opts.u0_v;
+  const percent = (100 * volts) / reference;
+  const zWords = x ? `√(${fmt(r)}² + ${x}²) mΩ/m` : `${fmt(r)} mΩ/m`;
+  const basis = `${three ? '√3' : '2'} × ${fmt(length)} m${opts.ring ? ' (ring: a quarter of its length)' : ''} × ${zWords} at ${opts.theta_c} °C × Ib ${fmt(opts.ib_a)} A`
+    + ` = ${fmt(volts)} V = ${fmt(percent)} % of ${fmt(reference)} V`;
+  return { volts, percent, basis };
+}
