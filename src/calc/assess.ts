@@ -4,6 +4,9 @@ import { circuitKey } from '../model/readings.js';
 import { maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { design as designOf } from './design/index.js';
+import { designFault } from './design/fault.js';
+import { energyAt } from './devices/index.js';
+import { kFor } from './design/k-factor.js';
 import { requiredDisconnection, resolveRules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
@@ -19,6 +22,11 @@ export function assess(project: Project): Assessment {
     const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
     const design = designOf(circuit, board, file.supply, rules);
+    const fault = designFault(design, device, rules.u0_v, rules.cmin);
+    const energy = fault.known ? energyAt(device, fault.current_a) : null;
+    const cpcMin = energy && fault.known && fault.time_s !== null && fault.time_s <= 5
+      ? Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k
+      : null;
     const ctx: CircuitContext = {
       circuit,
       board,
@@ -31,10 +39,16 @@ export function assess(project: Project): Assessment {
         r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
         zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
         vd_percent: design.vd ? round(design.vd.percent, 2) : null,
+        cpc_min_mm2: cpcMin === null ? null : round(cpcMin, 2),
         required_disconnect_s: required.seconds,
-        ...measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin),
+        // the design fault where a design Zs is known, else the one a measured Zs gives
+        ...(fault.known
+          ? { fault_current_a: Number(fault.current_a.toPrecision(3)), disconnect_s: fault.time_s === null ? null : Number(fault.time_s.toPrecision(3)) }
+          : measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin)),
       },
       design,
+      fault,
+      requiredBasis: required.basis,
       maxZsBasis: mz
         ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
         : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,

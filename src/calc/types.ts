@@ -4,6 +4,7 @@ import type { CircuitRecord } from '../model/validate.js';
 import type { CircuitReadings } from '../model/readings.js';
 import type { Rules } from './rules.js';
 import type { Design } from './design/index.js';
+import type { DesignFault } from './design/fault.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
 export type Status = (typeof STATUSES)[number];
@@ -42,6 +43,10 @@ export interface CircuitContext {
   derived: Derived;
   /** the circuit's design table (Iz, R1+R2, design Zs, voltage drop) */
   design: Design;
+  /** the design earth fault at the far end, and the device's answer to it */
+  fault: DesignFault;
+  /** why the required disconnection time is what it is */
+  requiredBasis: string;
   /** why max Zs is what it is (or why it is unknown) */
   maxZsBasis: string;
 }

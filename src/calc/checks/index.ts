@@ -1,5 +1,8 @@
 // The registry of checks, in the order a pack lists them (CONTRACT.md check ids).
 import type { Check, CheckId } from '../types.js';
+import { adiabatic } from './adiabatic.js';
+import { breakingCapacity } from './breaking-capacity.js';
+import { disconnection } from './disconnection.js';
 import { insulation } from './insulation.js';
 import { pending, rcdCheck, rcdTtCheck, ringCheck } from './pending.js';
 import { overload } from './overload.js';
@@ -12,9 +15,9 @@ export const CHECKS: readonly (readonly [CheckId, Check])[] = [
   ['overload', overload],
   ['voltage-drop', voltageDropCheck],
   ['zs-design', zsDesign],
-  ['disconnection', pending('disconnection', 'disconnection time at the design fault current')],
-  ['adiabatic', pending('adiabatic', 'protective conductor size (adiabatic)')],
-  ['breaking-capacity', pending('breaking-capacity', 'breaking capacity against the prospective fault current')],
+  ['disconnection', disconnection],
+  ['adiabatic', adiabatic],
+  ['breaking-capacity', breakingCapacity],
   ['continuity', pending('continuity', 'continuity of protective conductors (R1+R2)')],
   ['ring', ringCheck],
   ['insulation', insulation],
