@@ -37,6 +37,8 @@ export const RulesSchema = z.strictObject({
   vd_lighting_percent: z.number().gt(0).max(20).optional(),
   vd_other_percent: z.number().gt(0).max(20).optional(),
   final_circuit_limit_a: z.number().gt(0).optional(),
+  r1r2_tolerance_percent: z.number({ error: 'expected a percentage, e.g. 25' }).min(0).max(100).optional(),
+  r1r2_tolerance_ohm: z.number({ error: 'expected a resistance in ohms, e.g. 0.05' }).min(0).max(1).optional(),
 });
 
 export const BoardSchema = z.strictObject({
@@ -115,6 +117,7 @@ export const MEASURED = {
   ir_ll_mohm: 'megohm',
   ir_le_mohm: 'megohm',
   ir_test_v: 'volt',
+  test_temp_c: 'celsius',
   zs_ohm: 'ohm',
   rcd_1x_ms: 'millisecond',
   rcd_5x_ms: 'millisecond',

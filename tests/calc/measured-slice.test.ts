@@ -1,4 +1,4 @@
-// The first slice of measured-result checks: insulation, polarity and measured Zs.
+// The first slice of measured-result checks: insulation, polarity and measured Zs; the registry.
 import { describe, expect, it } from 'vitest';
 import { insulation } from '../../src/calc/checks/insulation.js';
 import { polarity } from '../../src/calc/checks/polarity.js';
@@ -73,7 +73,7 @@ describe('the check registry', () => {
   it('never passes a check that is not yet implemented', () => {
     const ctx = context({ ring: 'yes', rcd_ma: '30' }, { zs_ohm: '0.5', polarity: 'ok' });
     for (const [id, check] of CHECKS) {
-      if (['insulation', 'polarity', 'zs-measured'].includes(id)) continue;
+      if (['continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt'].includes(id)) continue;
       expect(check(ctx).status).not.toBe('pass');
     }
   });
