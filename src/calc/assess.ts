@@ -3,6 +3,7 @@ import type { Project } from '../model/validate.js';
 import { circuitKey } from '../model/readings.js';
 import { maxZs } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
+import { stages, traced } from './history.js';
 import { requiredDisconnection, resolveRules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
@@ -30,12 +31,13 @@ export function assess(project: Project): Assessment {
         ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
         : `the device library has no characteristic for ${circuit.device} ${circuit.rating_a} A at ${required.seconds} s yet`,
     };
+    const asOf = stages(ctx, project.rows);
     return {
       board: circuit.board,
       ref: circuit.ref,
       description: circuit.description,
       derived: ctx.derived,
-      checks: CHECKS.map(([, check]) => check(ctx)),
+      checks: CHECKS.map(([, check]) => traced(check, asOf)),
     };
   });
   return { job: project.name, rules, circuits, summary: summarise(circuits) };

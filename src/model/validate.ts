@@ -19,6 +19,8 @@ export interface Project {
   file: ProjectFile;
   circuits: CircuitRecord[];
   readings: Map<string, CircuitReadings>;
+  /** every readings row, in session order (oldest first): to assess a circuit as of each session */
+  rows: SessionRow[];
   sessions: { date: string; label: string; file: string }[];
   notes: string | null;
 }
@@ -151,6 +153,7 @@ export function validate(job: RawJob): Validation {
       file,
       circuits,
       readings: mergeSessions(sessionRows),
+      rows: sessionRows,
       sessions: job.sessions.map((s) => ({ date: s.date, label: s.label, file: s.table.file })),
       notes: job.notes?.text ?? null,
     },

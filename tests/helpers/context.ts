@@ -4,6 +4,7 @@ import { BoardSchema, CircuitSchema, ReadingRowSchema, SupplySchema } from '../.
 import { mergeSessions, type SessionRow } from '../../src/model/readings.js';
 import { resolveRules } from '../../src/calc/rules.js';
 import { maxZs } from '../../src/calc/devices/index.js';
+import { stages, type Stage } from '../../src/calc/history.js';
 import type { CircuitContext, Derived } from '../../src/calc/types.js';
 
 export interface Extra {
@@ -46,4 +47,15 @@ export function context(
   extra: Extra = {},
 ): CircuitContext {
   return build(circuit, [row('2026-11-13', readings)], supply, required, extra);
+}
+
+/** The circuit as of each of several test sessions (oldest first), as assess builds it. */
+export function sessions(
+  circuit: Record<string, string>,
+  tests: { date: string; readings: Record<string, string> }[],
+  supply: Record<string, unknown> = {},
+  extra: Extra = {},
+): Stage[] {
+  const rows = tests.map((t, i) => row(t.date, t.readings, i + 2));
+  return stages(build(circuit, rows, supply, 0.4, extra), rows);
 }

@@ -20,6 +20,7 @@ export const continuity: Check = (ctx) => {
   const r = numberOf(m!);
   const date = m!.date;
   const measured = `measured R1+R2 ${shown(r, 'Ω')}`;
+  const reading = { value: r.value, unit: 'ohm', date, over_range: r.kind === 'at-least' };
 
   // The loop: Ze at the board + R1+R2 against the fault protection limit.
   const fp = faultProtection(ctx);
@@ -30,13 +31,13 @@ export const continuity: Check = (ctx) => {
     // ">N" is above N: at or beyond the limit it is a fail
     if (loop > fp.limit_ohm || (r.kind === 'at-least' && loop >= fp.limit_ohm)) {
       return result(id, 'fail', `${zeWords} + ${measured} = ${r.kind === 'at-least' ? '>' : ''}${fmt(loop)} Ω > ${fmt(fp.limit_ohm)} Ω (${fp.basis})`,
-        { value: r.value, limit: round(fp.limit_ohm - ze), unit: 'ohm', date });
+        { ...reading, limit: round(fp.limit_ohm - ze) });
     }
   }
   const expected20 = ctx.derived.r1r2_expected_ohm ?? null;
-  if (expected20 === null) return result(id, 'not-verified', `${measured}: the R1+R2 expected of the cable is not known, so the reading cannot be judged`, { value: r.value, unit: 'ohm', date });
-  if (ze === undefined) return result(id, 'not-verified', `${measured}: no measured Ze (supply.ze_ohm) or Zdb for ${board.id}, so Ze + R1+R2 cannot be compared with the limit`, { value: r.value, unit: 'ohm', date });
-  if (fp.limit_ohm === null) return result(id, 'not-verified', `${measured}: no limit for Ze + R1+R2: ${fp.basis}`, { value: r.value, unit: 'ohm', date });
+  if (expected20 === null) return result(id, 'not-verified', `${measured}: the R1+R2 expected of the cable is not known, so the reading cannot be judged`, reading);
+  if (ze === undefined) return result(id, 'not-verified', `${measured}: no measured Ze (supply.ze_ohm) or Zdb for ${board.id}, so Ze + R1+R2 cannot be compared with the limit`, reading);
+  if (fp.limit_ohm === null) return result(id, 'not-verified', `${measured}: no limit for Ze + R1+R2: ${fp.basis}`, reading);
 
   // The cable: the expected value at the test temperature, with the tolerance.
   const t = readings.test_temp_c?.value;
@@ -48,7 +49,7 @@ export const continuity: Check = (ctx) => {
   const cable = `expected ${fmt(expected)} Ω ${thetaWords} (${fmt(expected20)} Ω at 20 °C × (1 + ${alpha} × (${fmt(theta)} − 20)), IEC 60287-1-1)`;
   const tolerance = `${fmt(expected)} Ω + ${rules.r1r2_tolerance_percent} % + ${rules.r1r2_tolerance_ohm} Ω = ${fmt(bound)} Ω (common practice)`;
   const loop = `${zeWords} + R1+R2 = ${fmt(ze + r.value)} Ω ≤ ${fmt(fp.limit_ohm)} Ω`;
-  const numbers = { value: r.value, limit: round(bound), unit: 'ohm', date };
+  const numbers = { ...reading, limit: round(bound) };
   if (r.value > bound || (r.kind === 'at-least' && r.value >= bound)) {
     return result(id, 'attention', `${measured} > ${tolerance}: more than the cable length explains (a poor joint or a longer route?); ${cable}; ${loop}`, numbers);
   }

@@ -30,16 +30,16 @@ export const insulation: Check = ({ circuit, supply, readings }) => {
   const rule = `minimum ${band.min_mohm} MΩ at ${band.test_v} V d.c. for a circuit ${band.band} (IEC 60364-6 Table 6.1)`;
   if (volts.value < band.test_v) {
     const words = `tested at ${shown(volts, 'V')} d.c.; a circuit ${band.band} is tested at ${band.test_v} V d.c. (IEC 60364-6 Table 6.1)`;
-    return result(id, volts.kind === 'value' ? 'fail' : 'not-verified', words, { value: volts.value, limit: band.test_v, unit: 'V', date });
+    return result(id, volts.kind === 'value' ? 'fail' : 'not-verified', words, { value: volts.value, over_range: volts.kind === 'at-least', limit: band.test_v, unit: 'V', date });
   }
   const candidates = [numberOf(le!), ...(llUsable ? [numberOf(ll)] : [])];
   const lowest = candidates.reduce((a, b) => (b.value < a.value ? b : a));
   const what = candidates.length === 2 ? 'lower of L–L and L–E' : 'L–E (L–L n/a)';
   const which = `${what} ${shown(lowest, 'MΩ')} at ${shown(volts, 'V')}`;
-  const numbers = { value: lowest.value, limit: band.min_mohm, unit: 'Mohm', date };
+  const numbers = { value: lowest.value, over_range: lowest.kind === 'at-least', limit: band.min_mohm, unit: 'Mohm', date };
   // a reading below the minimum fails, even where the other is an over-range bound below it too
   const below = candidates.find((c) => c.kind === 'value' && c.value < band.min_mohm);
-  if (below) return result(id, 'fail', `${what} ${shown(below, 'MΩ')} at ${shown(volts, 'V')} < ${rule}`, { ...numbers, value: below.value });
+  if (below) return result(id, 'fail', `${what} ${shown(below, 'MΩ')} at ${shown(volts, 'V')} < ${rule}`, { ...numbers, value: below.value, over_range: false });
   if (lowest.value < band.min_mohm) return result(id, 'not-verified', `${which} (over range) cannot show the ${rule}`, numbers);
   if (lowest.value < INSULATION_QUERY_BELOW_MOHM) {
     return result(id, 'attention', `${which} meets the ${rule}, but is below ${INSULATION_QUERY_BELOW_MOHM} MΩ and is worth investigating (common practice)`, numbers);

@@ -13,6 +13,7 @@ interface Part {
   status: Status;
   words: string;
   value: number | null;
+  over_range: boolean;
   limit: number | null;
   date: string;
 }
@@ -25,7 +26,7 @@ function tripTime(ctx: CircuitContext, kind: RcdKind, multiple: 1 | 5, standard:
   const t = numberOf(m!);
   const limits = RCD_BREAK_TIMES[kind].find((l) => l.multiple === multiple)!;
   const at = `${multiple} × IΔn ${shown(t, 'ms')}`;
-  const part = (status: Status, words: string, limit: number): Part => ({ status, words, value: t.value, limit, date: m!.date });
+  const part = (status: Status, words: string, limit: number): Part => ({ status, words, value: t.value, over_range: t.kind === 'at-least', limit, date: m!.date });
   // ">N" is above N: at or beyond the limit it is a fail
   if (t.value > limits.max_ms || (t.kind === 'at-least' && t.value >= limits.max_ms)) return part('fail', `${at} > ${limits.max_ms} ms`, limits.max_ms);
   if (t.kind === 'at-least') return part('not-verified', `${at} (over range) cannot show ≤ ${limits.max_ms} ms`, limits.max_ms);
@@ -39,7 +40,7 @@ function tripTime(ctx: CircuitContext, kind: RcdKind, multiple: 1 | 5, standard:
 function testButton(ctx: CircuitContext): Part | CheckResult {
   const m = ctx.readings.rcd_button;
   if (!m) return result(id, 'not-verified', 'no RCD test-button result recorded in any test session');
-  const part = (status: Status, words: string): Part => ({ status, words, value: null, limit: null, date: m.date });
+  const part = (status: Status, words: string): Part => ({ status, words, value: null, over_range: false, limit: null, date: m.date });
   switch (m.value) {
     case 'ok': return part('pass', 'test button ok');
     case 'fail': return part('fail', 'test button did not trip the RCD');
@@ -64,5 +65,5 @@ export const rcd: Check = (ctx) => {
   const decisive = judged.find((p) => p.status === status && p.value !== null) ?? judged[0]!;
   const device = `${fmt(circuit.rcd_ma)} mA ${circuit.rcd_type === undefined ? 'RCD of unrecorded type, general-type limits applied' : `type ${circuit.rcd_type} RCD`}`;
   const basis = `${device}: ${judged.map((p) => p.words).join('; ')} (${standard}, ${kind === 'S' ? 'time-delayed' : 'general'} type)`;
-  return result(id, status, basis, { value: decisive.value, limit: decisive.limit, unit: 'ms', date: latest(judged.map((p) => p.date)) });
+  return result(id, status, basis, { value: decisive.value, over_range: decisive.over_range, limit: decisive.limit, unit: 'ms', date: latest(judged.map((p) => p.date)) });
 };

@@ -5,10 +5,11 @@ import type { Measured } from '../../model/readings.js';
 
 export function result(
   id: CheckId, status: Status, basis: string,
-  numbers: { value?: number | null; limit?: number | null; unit?: string | null; date?: string } = {},
+  numbers: { value?: number | null; limit?: number | null; unit?: string | null; date?: string; over_range?: boolean } = {},
 ): CheckResult {
   const r: CheckResult = { id, status, value: numbers.value ?? null, limit: numbers.limit ?? null, unit: numbers.unit ?? null, basis };
   if (numbers.date !== undefined) r.date = numbers.date;
+  if (numbers.over_range) r.over_range = true;
   return r;
 }
 

@@ -16,14 +16,14 @@ export const zsMeasured: Check = (ctx) => {
   const zs = numberOf(m!);
   const fp = faultProtection(ctx);
   if (fp.limit_ohm === null) {
-    return result(id, 'not-verified', `no limit to compare measured Zs ${fmt(zs.value)} Ω with: ${fp.basis}`, { value: zs.value, unit: 'ohm', date: m!.date });
+    return result(id, 'not-verified', `no limit to compare measured Zs ${fmt(zs.value)} Ω with: ${fp.basis}`, { value: zs.value, over_range: zs.kind === 'at-least', unit: 'ohm', date: m!.date });
   }
   const { rules } = ctx;
   const limit = fp.by === 'rcd' ? fp.limit_ohm : rules.measured_zs_factor * fp.limit_ohm;
   const rule = fp.by === 'rcd'
     ? `${fmt(limit)} Ω (${fp.basis})`
     : `${rules.measured_zs_factor} × max Zs ${fmt(fp.limit_ohm)} Ω = ${fmt(limit)} Ω (fault protection by the overcurrent device: ${ctx.maxZsBasis})`;
-  const numbers = { value: zs.value, limit: Number(limit.toFixed(3)), unit: 'ohm', date: m!.date };
+  const numbers = { value: zs.value, over_range: zs.kind === 'at-least', limit: Number(limit.toFixed(3)), unit: 'ohm', date: m!.date };
   if (zs.kind === 'at-least') {
     // ">N" is above N: at or beyond the limit it is a fail
     return zs.value >= limit
