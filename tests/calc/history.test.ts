@@ -1,6 +1,10 @@
 // Re-tests: a later session supersedes an earlier one field by field, and each check keeps the
 // verdict of every earlier value it judged.
 import { describe, expect, it } from 'vitest';
+import { fileURLToPath } from 'node:url';
+import { readJob } from '../../src/load/job.js';
+import { validate } from '../../src/model/validate.js';
+import { assess } from '../../src/calc/assess.js';
 import { traced } from '../../src/calc/history.js';
 import { zsMeasured } from '../../src/calc/checks/zs-measured.js';
 import { insulation } from '../../src/calc/checks/insulation.js';
@@ -59,5 +63,33 @@ describe('a re-test traced through its sessions', () => {
     expect(traced(polarity, two).history).toBeUndefined();
     expect(traced(zsMeasured, two).history).toBeUndefined();
     expect(traced(rcdTt, two).history).toBeUndefined();
+  });
+});
+
+describe('re-tests in a job folder (tests/fixtures/tt-instrument-job)', () => {
+  const v = validate(readJob(fileURLToPath(new URL('../fixtures/tt-instrument-job/', import.meta.url))));
+  if (!v.ok) throw new Error('fixture invalid');
+  const a = assess(v.project);
+  const check = (ref: string, id: string) => a.circuits.find((c) => c.ref === ref)!.checks.find((k) => k.id === id)!;
+
+  it('traces a ring whose neutral was remade: fail, then pass', () => {
+    const ring = check('2', 'ring');
+    expect(ring.status).toBe('pass'); // r1 0.52, rn 0.53: within 0.05 Ω (common practice)
+    expect(ring.history?.map((h) => [h.date, h.status])).toEqual([['2026-11-13', 'fail'], ['2026-11-20', 'pass']]);
+  });
+  it('traces insulation that passed and failed at the instrument export: pass, then fail', () => {
+    const ir = check('1', 'insulation');
+    expect(ir.status).toBe('fail'); // 0.6 MΩ < 1.0 MΩ at 500 V (IEC 60364-6 Table 6A)
+    expect(ir.history).toEqual([
+      { date: '2026-11-13', value: 999, over_range: true, status: 'pass' },
+      { date: '2026-11-27', value: 0.6, status: 'fail' },
+    ]);
+  });
+  it('counts every check in the summary, and never passes what is not verified', () => {
+    const total = a.circuits.reduce((n, c) => n + c.checks.length, 0);
+    expect(Object.values(a.summary).reduce((x, y) => x + y, 0)).toBe(total);
+    expect(a.summary.fail).toBe(1);
+    // continuity waits for the expected R1+R2 of the design work: not verified, never pass
+    expect(a.circuits.map((c) => c.checks.find((k) => k.id === 'continuity')!.status)).toEqual(['not-verified', 'not-verified', 'not-verified']);
   });
 });
