@@ -16,7 +16,6 @@ export const MEASURED = {
   ir_ll_mohm: 'megohm',
   ir_le_mohm: 'megohm',
   ir_test_v: 'volt',
-  test_temp_c: 'celsius',
   zs_ohm: 'ohm',
   rcd_1x_ms: 'millisecond',
   rcd_5x_ms: 'millisecond',
