@@ -115,6 +115,15 @@ describe('a missing reading is never a pass (fast-check)', () => {
     expect(judged).toBeGreaterThan(2000);
   });
 
+  it('gives every n/a its reason', () => {
+    fc.assert(fc.property(scenario, ({ c, s, x, r }) => {
+      for (const [, check] of checks) {
+        const k = check(context(c, r, s, 0.4, x));
+        if (k.status === 'n/a') expect(k.basis.length).toBeGreaterThan(10);
+      }
+    }), { numRuns: 100 });
+  });
+
   it('a circuit with no readings at all passes no measured check that applies to it', () => {
     fc.assert(fc.property(circuit, supply, extra, (c, s, x) => {
       const st = statuses(context(c, {}, s, 0.4, x));
