@@ -15,18 +15,20 @@ export interface MappedTable {
   errors: LocatedError[];
 }
 
+/** Headers and mapping keys compare as text after NFKC, so the ohm sign U+2126 matches Ω (U+03A9). */
+const norm = (s: string): string => s.normalize('NFKC').trim();
 const HEADER_UNIT = /[([]\s*([^()[\]]*?)\s*[)\]]\s*$/;
 const isMeasured = (field: string): field is MeasuredField => field in MEASURED;
 
 export function mapColumns(table: RawTable, columns: Readonly<Record<string, string>>): MappedTable {
   const errors: LocatedError[] = [];
   const units: Partial<Record<MeasuredField, string>> = {};
-  const mapping = new Map(Object.entries(columns).map(([k, v]) => [k.trim(), v]));
+  const mapping = new Map(Object.entries(columns).map(([k, v]) => [norm(k), v]));
   const renamed = new Map<string, string>(); // header as written → packsmith column
   const given = new Map<string, RawCell>(); // packsmith column → the header that gives it
   const header: RawCell[] = [];
   for (const h of table.header) {
-    const mapped = mapping.get(h.text);
+    const mapped = mapping.get(norm(h.text));
     if (mapped === IGNORE_COLUMN) continue;
     const field = mapped ?? h.text;
     if (mapped !== undefined || (READING_COLUMNS as readonly string[]).includes(h.text)) {

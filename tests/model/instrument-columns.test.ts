@@ -48,6 +48,11 @@ describe('an instrument export under readings.columns', () => {
     expect(w.ok && w.project.readings.get('CU1/1')!.r1r2_ohm!.value).toEqual({ kind: 'value', value: 0.79 });
   });
 
+  it('matches a header written with the ohm sign (U+2126) to a mapping written with omega', () => {
+    const { v: w } = withExport(`Board,Circuit,Zs (\u2126)\nCU1,1,59.0\n`);
+    expect(w.ok && w.project.readings.get('CU1/1')!.zs_ohm!.value).toEqual({ kind: 'value', value: 59 });
+  });
+
   it('reports an unknown, unmapped column at its header, saying how to map it', () => {
     const { lines } = withExport(`${HEAD},Earth bond (Ω)\nCU1,1,TX-0042,T. Tester,0.79,>999,0.6,500,OK,59.0,27,12,OK,,0.1\n`);
     expect(lines).toContainEqual(expect.stringMatching(/^readings\/2026-11-27-export\.csv:1:15: unknown column "Earth bond \(Ω\)".*readings\.columns in project\.yaml/));
