@@ -1,64 +1,73 @@
 // Project → Assessment. Pure: no file system, clock or network.
 import type { Project } from '../model/validate.js';
-import { circuitKey } from '../model/readings.js';
+import type { Board, Circuit, Supply } from '../model/schema.js';
+import { circuitKey, type CircuitReadings } from '../model/readings.js';
 import { maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { design as designOf } from './design/index.js';
 import { designFault } from './design/fault.js';
-import { energyAt } from './devices/index.js';
-import { kFor } from './design/k-factor.js';
-import { requiredDisconnection, resolveRules } from './rules.js';
+import { ADIABATIC_LIMIT_S, kFor } from './design/k-factor.js';
+import { stages, traced } from './history.js';
+import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
+const significant = (n: number): number => Number(n.toPrecision(3));
+
+/** Everything the checks need to know about one circuit: its design table and its readings. */
+export function circuitContext(
+  circuit: Circuit & { row: number }, board: Board, supply: Supply, rules: Rules, readings: CircuitReadings,
+): CircuitContext {
+  const required = requiredDisconnection(supply.earthing, rules.u0_v, circuit.rating_a, rules, circuit.disconnect_s);
+  const device = { code: circuit.device, rating_a: circuit.rating_a };
+  const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
+  const design = designOf(circuit, board, supply, rules);
+  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
+  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd });
+  const energy = fault.known && fault.time_s !== null && fault.time_s <= ADIABATIC_LIMIT_S ? fault.energy : null;
+  const cpcMin = energy ? Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k : null;
+  return {
+    circuit,
+    board,
+    supply,
+    rules,
+    readings,
+    derived: {
+      iz_a: design.capacity.ok ? round(design.capacity.capacity.iz_a, 2) : null,
+      max_zs_ohm: mz ? round(mz.max_zs_ohm, 3) : null,
+      r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
+      zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
+      vd_percent: design.vd ? round(design.vd.percent, 2) : null,
+      cpc_min_mm2: cpcMin === null ? null : round(cpcMin, 2),
+      required_disconnect_s: required.seconds,
+      // the design fault where a design Zs is known, else the one a measured Zs gives
+      ...(fault.known
+        ? { fault_current_a: significant(fault.current_a), disconnect_s: fault.time_s === null ? null : significant(fault.time_s) }
+        : measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin)),
+    },
+    design,
+    fault,
+    requiredBasis: required.basis,
+    maxZsBasis: mz
+      ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
+      : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,
+  };
+}
 
 export function assess(project: Project): Assessment {
   const { file } = project;
   const rules = resolveRules(file.supply, file.rules);
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
     const board = file.boards.find((b) => b.id === circuit.board)!;
-    const required = requiredDisconnection(file.supply.earthing, rules.u0_v, circuit.rating_a, rules, circuit.disconnect_s);
-    const device = { code: circuit.device, rating_a: circuit.rating_a };
-    const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
-    const design = designOf(circuit, board, file.supply, rules);
-    const fault = designFault(design, device, rules.u0_v, rules.cmin);
-    const energy = fault.known ? energyAt(device, fault.current_a) : null;
-    const cpcMin = energy && fault.known && fault.time_s !== null && fault.time_s <= 5
-      ? Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k
-      : null;
-    const ctx: CircuitContext = {
-      circuit,
-      board,
-      supply: file.supply,
-      rules,
-      readings,
-      derived: {
-        iz_a: design.capacity.ok ? round(design.capacity.capacity.iz_a, 2) : null,
-        max_zs_ohm: mz ? round(mz.max_zs_ohm, 3) : null,
-        r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
-        zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
-        vd_percent: design.vd ? round(design.vd.percent, 2) : null,
-        cpc_min_mm2: cpcMin === null ? null : round(cpcMin, 2),
-        required_disconnect_s: required.seconds,
-        // the design fault where a design Zs is known, else the one a measured Zs gives
-        ...(fault.known
-          ? { fault_current_a: Number(fault.current_a.toPrecision(3)), disconnect_s: fault.time_s === null ? null : Number(fault.time_s.toPrecision(3)) }
-          : measuredFault(device, readings.zs_ohm?.value, rules.u0_v, rules.cmin)),
-      },
-      design,
-      fault,
-      requiredBasis: required.basis,
-      maxZsBasis: mz
-        ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
-        : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,
-    };
+    const ctx = circuitContext(circuit, board, file.supply, rules, readings);
+    const asOf = stages(ctx, project.rows);
     return {
       board: circuit.board,
       ref: circuit.ref,
       description: circuit.description,
       derived: ctx.derived,
-      checks: CHECKS.map(([, check]) => check(ctx)),
+      checks: CHECKS.map(([, check]) => traced(check, asOf)),
     };
   });
   return { job: project.name, rules, circuits, summary: summarise(circuits) };

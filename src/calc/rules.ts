@@ -11,6 +11,9 @@ export interface Rules {
   vd_lighting_percent: number;
   vd_other_percent: number;
   final_circuit_limit_a: number;
+  /** measured R1+R2 above expected × (1 + percent/100) + ohm is queried */
+  r1r2_tolerance_percent: number;
+  r1r2_tolerance_ohm: number;
   /** the names of the parameters the job overrode */
   overrides: string[];
 }
@@ -24,6 +27,9 @@ export const DEFAULT_RULES = {
   vd_lighting_percent: 3,
   vd_other_percent: 5,
   final_circuit_limit_a: FINAL_CIRCUIT_LIMIT_A,
+  // measured R1+R2 well above what the cable explains: 25 % + 0.05 Ω (common practice)
+  r1r2_tolerance_percent: 25,
+  r1r2_tolerance_ohm: 0.05,
 } as const;
 
 export function resolveRules(supply: Supply, overrides: RuleOverrides): Rules {
@@ -36,6 +42,8 @@ export function resolveRules(supply: Supply, overrides: RuleOverrides): Rules {
     vd_lighting_percent: overrides.vd_lighting_percent ?? DEFAULT_RULES.vd_lighting_percent,
     vd_other_percent: overrides.vd_other_percent ?? DEFAULT_RULES.vd_other_percent,
     final_circuit_limit_a: overrides.final_circuit_limit_a ?? DEFAULT_RULES.final_circuit_limit_a,
+    r1r2_tolerance_percent: overrides.r1r2_tolerance_percent ?? DEFAULT_RULES.r1r2_tolerance_percent,
+    r1r2_tolerance_ohm: overrides.r1r2_tolerance_ohm ?? DEFAULT_RULES.r1r2_tolerance_ohm,
     overrides: given,
   };
 }

@@ -25,6 +25,20 @@ export interface CheckResult {
   basis: string;
   /** the test date of the reading judged, where a reading was judged */
   date?: string;
+  /** present (true) when value is an instrument's over-range reading: a lower bound, ">value" */
+  over_range?: true;
+  /**
+   * Where a later session re-judged this check: its verdict as of each session that changed it,
+   * oldest first, the last entry being this result. Absent when it was judged once.
+   */
+  history?: HistoryEntry[];
+}
+
+export interface HistoryEntry {
+  date: string;
+  value: number | null;
+  over_range?: true;
+  status: Status;
 }
 
 export interface Derived {

@@ -36,10 +36,10 @@ export function quantity(q: Quantity, opts: { positive?: boolean; min?: number; 
   });
 }
 
-/** A test reading: a number, an over-range lower bound, n/a or not-tested. */
-export function reading(q: Quantity) {
+/** A test reading: a number, an over-range lower bound, n/a or not-tested; `unit` the column's. */
+export function reading(q: Quantity, unit = '') {
   return text(QUANTITIES[q].words).transform((s, ctx): Reading => {
-    const r = parseCell(s, q);
+    const r = parseCell(s, q, unit);
     if (!r.ok) {
       ctx.addIssue({ code: 'custom', message: r.message });
       return z.NEVER;

@@ -5,6 +5,61 @@ import { DEVICE_CODES } from '../reference/device-codes.js';
 import { choice, quantity, reading, word, yesNo } from './cells.js';
 import type { Quantity } from './units.js';
 
+// ---------------------------------------------------------------- readings/*.csv
+
+/** Measured fields and their quantity: the value is kept in the unit the name says. */
+export const MEASURED = {
+  r1r2_ohm: 'ohm',
+  ring_r1_ohm: 'ohm',
+  ring_rn_ohm: 'ohm',
+  ring_r2_ohm: 'ohm',
+  ir_ll_mohm: 'megohm',
+  ir_le_mohm: 'megohm',
+  ir_test_v: 'volt',
+  zs_ohm: 'ohm',
+  rcd_1x_ms: 'millisecond',
+  rcd_5x_ms: 'millisecond',
+} as const satisfies Record<string, Quantity>;
+export type MeasuredField = keyof typeof MEASURED;
+
+export const OUTCOMES = ['ok', 'fail', 'n/a', 'not-tested'] as const;
+export type Outcome = (typeof OUTCOMES)[number];
+
+const outcome = (what: string) => choice(OUTCOMES, what);
+
+/**
+ * The schema of a readings row. `units` gives, for a measured field, the unit its column's header
+ * names (an instrument export's "Zs (Ω)"): numbers written without a unit are in it.
+ */
+export function readingRowSchema(units: Partial<Record<MeasuredField, string>> = {}) {
+  return z.object({
+    board: word('the board id'),
+    ref: word('the circuit reference'),
+    ...(Object.fromEntries(Object.entries(MEASURED).map(([k, q]) => [k, reading(q, units[k as MeasuredField]).optional()])) as Record<
+      MeasuredField,
+      z.ZodOptional<ReturnType<typeof reading>>
+    >),
+    polarity: outcome('the polarity result').optional(),
+    rcd_button: outcome('the RCD test-button result').optional(),
+    tested_by: z.string().optional(),
+    notes: z.string().optional(),
+  });
+}
+
+export const ReadingRowSchema = readingRowSchema();
+export type ReadingRow = z.output<typeof ReadingRowSchema>;
+export const READING_COLUMNS = Object.keys(ReadingRowSchema.shape) as (keyof ReadingRow)[];
+export type ReadingField = Exclude<keyof ReadingRow, 'board' | 'ref'>;
+
+/** readings: in project.yaml — how an instrument's export maps onto the readings columns. */
+export const IGNORE_COLUMN = 'ignore' as const;
+export const ReadingsSettingsSchema = z.strictObject({
+  /** an instrument's column header (as written, units and all) → a readings column, or "ignore" */
+  columns: z.record(z.string(), choice([IGNORE_COLUMN, ...READING_COLUMNS], 'a readings column or "ignore"'))
+    .default({}),
+});
+export type ReadingsSettings = z.output<typeof ReadingsSettingsSchema>;
+
 // ---------------------------------------------------------------- project.yaml
 
 const Party = z.strictObject({
@@ -37,6 +92,8 @@ export const RulesSchema = z.strictObject({
   vd_lighting_percent: z.number().gt(0).max(20).optional(),
   vd_other_percent: z.number().gt(0).max(20).optional(),
   final_circuit_limit_a: z.number().gt(0).optional(),
+  r1r2_tolerance_percent: z.number({ error: 'expected a percentage, e.g. 25' }).min(0).max(100).optional(),
+  r1r2_tolerance_ohm: z.number({ error: 'expected a resistance in ohms, e.g. 0.05' }).min(0).max(1).optional(),
 });
 
 export const BoardSchema = z.strictObject({
@@ -59,6 +116,7 @@ export const ProjectFileSchema = z.strictObject({
   supply: SupplySchema,
   rules: RulesSchema.default({ set: 'iec-60364' }),
   boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' }),
+  readings: ReadingsSettingsSchema.default({ columns: {} }),
 });
 
 export type ProjectFile = z.output<typeof ProjectFileSchema>;
@@ -71,6 +129,7 @@ export type Board = ProjectFile['boards'][number];
 export const KINDS = ['lighting', 'power', 'heating', 'motor', 'other'] as const;
 export const METHODS = ['A1', 'A2', 'B1', 'B2', 'C', 'D', 'E', 'F'] as const;
 export const RCD_TYPES = ['AC', 'A', 'F', 'B', 'AC-S', 'A-S', 'F-S', 'B-S'] as const;
+export type RcdType = (typeof RCD_TYPES)[number];
 
 export const CircuitSchema = z.object({
   board: word('the board id'),
@@ -104,42 +163,3 @@ export type Circuit = z.output<typeof CircuitSchema>;
 export const CIRCUIT_REQUIRED = ['board', 'ref', 'description', 'kind', 'ib_a', 'device', 'rating_a',
   'live_mm2', 'cpc_mm2', 'length_m', 'method'] as const;
 export const CIRCUIT_COLUMNS = Object.keys(CircuitSchema.shape);
-
-// ---------------------------------------------------------------- readings/*.csv
-
-/** Measured fields and their quantity: the value is kept in the unit the name says. */
-export const MEASURED = {
-  r1r2_ohm: 'ohm',
-  ring_r1_ohm: 'ohm',
-  ring_rn_ohm: 'ohm',
-  ring_r2_ohm: 'ohm',
-  ir_ll_mohm: 'megohm',
-  ir_le_mohm: 'megohm',
-  ir_test_v: 'volt',
-  zs_ohm: 'ohm',
-  rcd_1x_ms: 'millisecond',
-  rcd_5x_ms: 'millisecond',
-} as const satisfies Record<string, Quantity>;
-export type MeasuredField = keyof typeof MEASURED;
-
-export const OUTCOMES = ['ok', 'fail', 'n/a', 'not-tested'] as const;
-export type Outcome = (typeof OUTCOMES)[number];
-
-const outcome = (what: string) => choice(OUTCOMES, what);
-
-export const ReadingRowSchema = z.object({
-  board: word('the board id'),
-  ref: word('the circuit reference'),
-  ...(Object.fromEntries(Object.entries(MEASURED).map(([k, q]) => [k, reading(q).optional()])) as Record<
-    MeasuredField,
-    z.ZodOptional<ReturnType<typeof reading>>
-  >),
-  polarity: outcome('the polarity result').optional(),
-  rcd_button: outcome('the RCD test-button result').optional(),
-  tested_by: z.string().optional(),
-  notes: z.string().optional(),
-});
-
-export type ReadingRow = z.output<typeof ReadingRowSchema>;
-export const READING_COLUMNS = Object.keys(ReadingRowSchema.shape);
-export type ReadingField = Exclude<keyof ReadingRow, 'board' | 'ref'>;

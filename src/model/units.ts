@@ -76,8 +76,12 @@ export type CellResult = { ok: true; reading: Reading } | { ok: false; message: 
 const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+\s*\S*$/;
 
-/** Parse one cell of the given quantity. An empty cell is the caller's business (not given). */
-export function parseCell(text: string, quantity: Quantity): CellResult {
+/**
+ * Parse one cell of the given quantity. An empty cell is the caller's business (not given).
+ * `columnUnit` is the unit a column's header names (an instrument export's "Zs (Ω)"): a number
+ * written without a unit is in it. Check it first with `unitFits`.
+ */
+export function parseCell(text: string, quantity: Quantity, columnUnit = ''): CellResult {
   const info = QUANTITIES[quantity];
   const raw = text.trim();
   const lower = raw.toLowerCase();
@@ -99,18 +103,19 @@ export function parseCell(text: string, quantity: Quantity): CellResult {
     };
   }
   let value = Number(m[1]);
-  const unit = (m[2] ?? '').replace(/\s+/g, '');
+  const written = (m[2] ?? '').replace(/\s+/g, '');
+  const unit = written === '' ? columnUnit.replace(/\s+/g, '') : written;
   if (unit !== '') {
     if (quantity === 'millisecond' && (unit === 's' || unit === 'sec')) {
       return { ok: false, message: `found "${raw}", a time in seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };
     }
     const factor = info.units[unit];
     if (factor === undefined) {
-      return { ok: false, message: `found "${raw}": the unit "${m[2]}" does not fit here; expected ${info.words}` };
+      return { ok: false, message: `found "${raw}": the unit "${written === '' ? columnUnit : m[2]}" does not fit here; expected ${info.words}` };
     }
     value *= factor;
   }
-  if (quantity === 'millisecond' && unit === '' && value > 0 && value < 1) {
+  if (quantity === 'millisecond' && written === '' && value > 0 && value < 1) {
     return { ok: false, message: `found "${raw}", which looks like seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };
   }
   if (info.nonNegative && value < 0) {
@@ -135,6 +140,11 @@ export function fmt(n: number, sig = 3): string {
   if (!Number.isFinite(n)) return String(n);
   if (Math.abs(n) >= 10 ** sig) return String(Math.round(n));
   return String(Number(n.toPrecision(sig)));
+}
+
+/** Whether a unit (as written in a column header) is one of the quantity's. */
+export function unitFits(unit: string, q: Quantity): boolean {
+  return QUANTITIES[q].units[unit.replace(/\s+/g, '')] !== undefined;
 }
 
 export function symbolOf(q: Quantity): string {

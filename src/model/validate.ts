@@ -3,9 +3,10 @@
 import type { z } from 'zod';
 import type { LocatedError, RawJob, RawTable } from '../load/raw.js';
 import {
-  CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, CircuitSchema, ProjectFileSchema, READING_COLUMNS, ReadingRowSchema,
-  type Circuit, type ProjectFile,
+  CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, CircuitSchema, ProjectFileSchema, READING_COLUMNS, readingRowSchema,
+  ReadingsSettingsSchema, type Circuit, type ProjectFile, type ReadingsSettings,
 } from './schema.js';
+import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
 import { ratingProblem } from './device-rating.js';
 
@@ -20,6 +21,8 @@ export interface Project {
   file: ProjectFile;
   circuits: CircuitRecord[];
   readings: Map<string, CircuitReadings>;
+  /** every readings row, in session order (oldest first): to assess a circuit as of each session */
+  rows: SessionRow[];
   sessions: { date: string; label: string; file: string }[];
   notes: string | null;
 }
@@ -58,17 +61,18 @@ function tableRows<S extends z.ZodType>(
   known: readonly string[],
   required: readonly string[],
   errors: LocatedError[],
+  hint = '',
 ): { row: number; values: z.output<S> }[] {
   const headerRow = 1;
   const names = new Set(table.header.map((h) => h.text));
   for (const h of table.header) {
     if (h.text !== '' && !known.includes(h.text)) {
-      errors.push({ file: table.file, row: headerRow, column: h.column, message: `unknown column "${h.text}"; the columns packsmith reads are: ${known.join(', ')}` });
+      errors.push({ file: table.file, row: headerRow, column: h.column, message: `unknown column "${h.text}"; the columns packsmith reads are: ${known.join(', ')}${hint}` });
     }
   }
   const missing = required.filter((r) => !names.has(r));
   if (missing.length > 0) {
-    errors.push({ file: table.file, row: headerRow, column: 1, message: `missing column${missing.length > 1 ? 's' : ''} ${missing.map((m) => `"${m}"`).join(', ')}` });
+    errors.push({ file: table.file, row: headerRow, column: 1, message: `missing column${missing.length > 1 ? 's' : ''} ${missing.map((m) => `"${m}"`).join(', ')}${hint}` });
   }
   const out: { row: number; values: z.output<S> }[] = [];
   for (const r of table.rows) {
@@ -95,9 +99,9 @@ export function validate(job: RawJob): Validation {
 
   const circuits: CircuitRecord[] = [];
   const known = new Set<string>();
+  const boards = boardIds(job);
   if (job.circuits) {
     const table = job.circuits;
-    const boards = boardIds(job);
     // Identity first, on the raw cells, so a row with other mistakes is still checked.
     const seen = new Map<string, number>();
     const duplicate = new Set<number>();
@@ -126,25 +130,32 @@ export function validate(job: RawJob): Validation {
   }
 
   const sessionRows: SessionRow[] = [];
+  const { columns } = readingSettings(job, file);
   for (const s of job.sessions) {
+    const mapped = mapColumns(s.table, columns);
+    errors.push(...mapped.errors);
+    const table = mapped.table;
     const seen = new Map<string, number>();
     const skip = new Set<number>();
-    for (const r of s.table.rows) {
+    for (const r of table.rows) {
       const board = r.cells.board?.text;
       const ref = r.cells.ref?.text;
       if (!board || !ref) continue;
       const key = circuitKey(board, ref);
       const first = seen.get(key);
-      if (job.circuits && !known.has(key)) {
-        errors.push({ file: s.table.file, row: r.row, column: r.cells.ref!.column, message: `no circuit ${ref} on board ${board} in circuits.csv` });
+      if (boards && !boards.has(board)) {
+        errors.push({ file: table.file, row: r.row, column: r.cells.board!.column, message: `board "${board}" is not listed under boards in project.yaml (listed: ${[...boards].join(', ')})` });
+        skip.add(r.row);
+      } else if (job.circuits && !known.has(key)) {
+        errors.push({ file: table.file, row: r.row, column: r.cells.ref!.column, message: `no circuit ${ref} on board ${board} in circuits.csv` });
         skip.add(r.row);
       } else if (first !== undefined) {
-        errors.push({ file: s.table.file, row: r.row, column: r.cells.ref!.column, message: `circuit ${ref} on ${board} appears twice in this session (also row ${first}); one row per circuit per session` });
+        errors.push({ file: table.file, row: r.row, column: r.cells.ref!.column, message: `circuit ${ref} on ${board} appears twice in this session (also row ${first}); one row per circuit per session` });
         skip.add(r.row);
       } else seen.set(key, r.row);
     }
-    for (const { row, values } of tableRows(s.table, ReadingRowSchema, READING_COLUMNS, ['board', 'ref'], errors)) {
-      if (!skip.has(row)) sessionRows.push({ date: s.date, file: s.table.file, row, values });
+    for (const { row, values } of tableRows(table, readingRowSchema(mapped.units), READING_COLUMNS, ['board', 'ref'], errors, MAP_HINT)) {
+      if (!skip.has(row)) sessionRows.push({ date: s.date, file: table.file, row, values });
     }
   }
 
@@ -156,10 +167,21 @@ export function validate(job: RawJob): Validation {
       file,
       circuits,
       readings: mergeSessions(sessionRows),
+      rows: sessionRows,
       sessions: job.sessions.map((s) => ({ date: s.date, label: s.label, file: s.table.file })),
       notes: job.notes?.text ?? null,
     },
   };
+}
+
+const MAP_HINT = '; an instrument\'s column is mapped onto one of these (or to "ignore") under readings.columns in project.yaml';
+
+/** The readings settings of project.yaml, even when other parts of it are invalid. */
+function readingSettings(job: RawJob, file: ProjectFile | null): ReadingsSettings {
+  if (file) return file.readings;
+  const raw = (job.project?.data as { readings?: unknown } | null)?.readings;
+  const parsed = ReadingsSettingsSchema.safeParse(raw ?? {});
+  return parsed.success ? parsed.data : { columns: {} };
 }
 
 /** Board ids as written in project.yaml, even when other parts of it are invalid. */

@@ -1,6 +1,6 @@
 // The terminal view of an assessment (`packsmith check`): one block per circuit, one line per check.
 import type { Assessment } from '../calc/types.js';
-import { STATUS_LOOK } from './view.js';
+import { historyLine, STATUS_LOOK } from './view.js';
 
 export function assessmentText(a: Assessment): string {
   const lines: string[] = [];
@@ -10,6 +10,8 @@ export function assessmentText(a: Assessment): string {
     for (const k of c.checks) {
       const look = STATUS_LOOK[k.status];
       lines.push(`  ${look.symbol} ${look.word.padEnd(12)} ${k.id.padEnd(17)} ${k.basis}`);
+      const trace = historyLine(k);
+      if (trace) lines.push(`${' '.repeat(34)}${trace}`);
     }
   }
   const s = a.summary;

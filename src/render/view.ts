@@ -26,6 +26,19 @@ export interface RenderOptions {
 
 const look = (s: Status) => ({ status: s, ...STATUS_LOOK[s] });
 
+/** The symbols of the units check results carry. */
+const UNIT_SYMBOL: Record<string, string> = { ohm: 'Ω', Mohm: 'MΩ', ms: 'ms', V: 'V' };
+
+/** A re-tested check in one line: "1.62 Ω on 2026-11-13 (fail), re-tested 0.71 Ω on 2026-11-20 (pass)". */
+export function historyLine(k: CheckResult): string | null {
+  if (!k.history) return null;
+  const unit = k.unit === null ? '' : ` ${UNIT_SYMBOL[k.unit] ?? k.unit}`;
+  return k.history.map((h, i) => {
+    const value = h.value === null ? '' : `${h.over_range ? '>' : ''}${fmt(h.value)}${unit} `;
+    return `${i === 0 ? '' : 're-tested '}${value}on ${h.date} (${STATUS_LOOK[h.status].word})`;
+  }).join(', ');
+}
+
 function showReading(field: MeasuredField, r: Reading): string {
   const unit = symbolOf(MEASURED[field]);
   switch (r.kind) {
@@ -65,7 +78,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
   const f = project.file;
   const openItems: { board: string; ref: string; description: string; check: string; basis: string; look: ReturnType<typeof look> }[] = [];
   const byCircuit = new Map(assessment.circuits.map((c) => [circuitKey(c.board, c.ref), c]));
-  const checkView = (k: CheckResult) => ({ id: k.id, basis: k.basis, date: k.date ?? null, look: look(k.status) });
+  const checkView = (k: CheckResult) => ({ id: k.id, basis: k.basis, date: k.date ?? null, history: historyLine(k), look: look(k.status) });
 
   const boards = f.boards.map((b) => ({
     id: b.id,

@@ -72,6 +72,12 @@ describe('merging test sessions', () => {
     expect(signage.zs_ohm!.earlier).toEqual([{ value: { kind: 'value', value: 9.8 }, date: '2026-11-13', file: 'readings/2026-11-13.csv' }]);
   });
 
+  it('reads the cellar session from the tester\'s export through readings.columns', () => {
+    const cellar = d.project.readings.get('DB2/1')!;
+    expect(cellar.ir_le_mohm).toMatchObject({ value: { kind: 'value', value: 1.6 }, date: '2026-11-16', file: 'readings/2026-11-16-cellar-export.csv' });
+    expect(cellar.tested_by!.value).toBe('R. Okafor');
+  });
+
   it('keeps an earlier value where the later session is silent', () => {
     const ring = d.project.readings.get('DB1/3')!;
     expect(ring.rcd_1x_ms!.date).toBe('2026-11-13');

@@ -1,28 +1,23 @@
 // Protective conductor size by the adiabatic equation S = √(I²t) / k (IEC 60364-5-54, 543.1.2),
-// for the design earth fault at the far end of the circuit, with the device's I²t at that current
+// for the design earth fault at the far end of the circuit, with the I²t of the device that opens
 // and k by conductor, insulation and whether the cpc is a core of the cable. The equation holds
 // for disconnection within 5 s.
 import type { Check } from '../types.js';
-import { energyAt } from '../devices/index.js';
 import { fmt } from '../../model/units.js';
-import { kFor } from '../design/k-factor.js';
+import { ADIABATIC_LIMIT_S, kFor } from '../design/k-factor.js';
 import { notVerified, result } from './result.js';
-
-const ADIABATIC_LIMIT_S = 5;
 
 export const adiabatic: Check = ({ circuit, fault }) => {
   const id = 'adiabatic';
-  const what = `${circuit.device} ${fmt(circuit.rating_a)} A`;
   if (!fault.known) return notVerified(id, `no design fault current: ${fault.why}`);
-  if (!fault.device_known) return notVerified(id, `${fault.basis}; the device library has no characteristic for ${what}`);
-  if (fault.time_s === null || fault.time_s > ADIABATIC_LIMIT_S) {
-    return result(id, 'fail', `${fault.basis}: ${what} ${fault.time_s === null ? 'is not known to operate' : `takes ${fmt(fault.time_s)} s`}; the adiabatic equation needs disconnection within 5 s (IEC 60364-5-54, 543.1.2)`, { value: circuit.cpc_mm2, unit: 'mm2' });
+  if (!fault.device_known) return notVerified(id, `${fault.basis}; the device library has no characteristic for ${fault.opener}`);
+  if (!fault.energy || fault.time_s === null || fault.time_s > ADIABATIC_LIMIT_S) {
+    return result(id, 'fail', `${fault.basis}: ${fault.opener} ${fault.time_s === null ? 'is not known to operate' : `takes ${fmt(fault.time_s)} s`}; the adiabatic equation needs disconnection within ${ADIABATIC_LIMIT_S} s (IEC 60364-5-54, 543.1.2)`, { value: circuit.cpc_mm2, unit: 'mm2' });
   }
-  const energy = energyAt({ code: circuit.device, rating_a: circuit.rating_a }, fault.current_a)!;
   const k = kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable);
-  const s = Math.sqrt(energy.i2t_a2s) / k.k;
+  const s = Math.sqrt(fault.energy.i2t_a2s) / k.k;
   const ok = circuit.cpc_mm2 >= s;
   return result(id, ok ? 'pass' : 'fail',
-    `${fault.basis}; ${energy.basis}; S = √(I²t) / ${k.basis} = ${fmt(s)} mm²; cpc ${fmt(circuit.cpc_mm2)} mm² ${ok ? '≥' : '<'} ${fmt(s)} mm²`,
+    `${fault.basis}; ${fault.energy.basis}; S = √(I²t) / ${k.basis} = ${fmt(s)} mm²; cpc ${fmt(circuit.cpc_mm2)} mm² ${ok ? '≥' : '<'} ${fmt(s)} mm²`,
     { value: circuit.cpc_mm2, limit: Number(s.toFixed(3)), unit: 'mm2' });
 };

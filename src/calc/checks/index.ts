@@ -2,11 +2,14 @@
 import type { Check, CheckId } from '../types.js';
 import { adiabatic } from './adiabatic.js';
 import { breakingCapacity } from './breaking-capacity.js';
+import { continuity } from './continuity.js';
 import { disconnection } from './disconnection.js';
 import { insulation } from './insulation.js';
-import { pending, rcdCheck, rcdTtCheck, ringCheck } from './pending.js';
 import { overload } from './overload.js';
 import { polarity } from './polarity.js';
+import { rcd } from './rcd.js';
+import { rcdTt } from './rcd-tt.js';
+import { ring } from './ring.js';
 import { voltageDropCheck } from './voltage-drop.js';
 import { zsDesign } from './zs-design.js';
 import { zsMeasured } from './zs-measured.js';
@@ -18,11 +21,11 @@ export const CHECKS: readonly (readonly [CheckId, Check])[] = [
   ['disconnection', disconnection],
   ['adiabatic', adiabatic],
   ['breaking-capacity', breakingCapacity],
-  ['continuity', pending('continuity', 'continuity of protective conductors (R1+R2)')],
-  ['ring', ringCheck],
+  ['continuity', continuity],
+  ['ring', ring],
   ['insulation', insulation],
   ['polarity', polarity],
   ['zs-measured', zsMeasured],
-  ['rcd', rcdCheck],
-  ['rcd-tt', rcdTtCheck],
+  ['rcd', rcd],
+  ['rcd-tt', rcdTt],
 ];

@@ -1,14 +1,15 @@
 // Small constructors for check results, so each check reads as its rule.
 import type { CheckId, CheckResult, Status } from '../types.js';
-import type { Reading } from '../../model/units.js';
+import { fmt, type Reading } from '../../model/units.js';
 import type { Measured } from '../../model/readings.js';
 
 export function result(
   id: CheckId, status: Status, basis: string,
-  numbers: { value?: number | null; limit?: number | null; unit?: string | null; date?: string } = {},
+  numbers: { value?: number | null; limit?: number | null; unit?: string | null; date?: string; over_range?: boolean } = {},
 ): CheckResult {
   const r: CheckResult = { id, status, value: numbers.value ?? null, limit: numbers.limit ?? null, unit: numbers.unit ?? null, basis };
   if (numbers.date !== undefined) r.date = numbers.date;
+  if (numbers.over_range) r.over_range = true;
   return r;
 }
 
@@ -21,4 +22,27 @@ export function unusable(id: CheckId, name: string, m: Measured<Reading> | undef
   if (m.value.kind === 'not-tested') return result(id, 'not-verified', `${name} marked not tested on ${m.date}`, { date: m.date });
   if (m.value.kind === 'n/a') return result(id, 'not-verified', `${name} marked n/a on ${m.date}; this circuit needs it`, { date: m.date });
   return null;
+}
+
+export type Numeric = Extract<Reading, { value: number }>;
+
+/** The number of a reading `unusable` has passed: a value, or an over-range lower bound. */
+export function numberOf(m: Measured<Reading>): Numeric {
+  if (m.value.kind !== 'value' && m.value.kind !== 'at-least') throw new Error(`reading of ${m.date} has no number`);
+  return m.value;
+}
+
+/** How a number reads in a basis line: an over-range reading keeps its ">". */
+export const shown = (r: Numeric, unit: string): string => `${r.kind === 'at-least' ? '>' : ''}${fmt(r.value)} ${unit}`;
+
+const SEVERITY: readonly Status[] = ['fail', 'not-verified', 'attention', 'pass', 'n/a'];
+
+/** The most severe of several statuses: fail, then not verified, then attention, then pass. */
+export function worst(statuses: readonly Status[]): Status {
+  return SEVERITY.find((s) => statuses.includes(s)) ?? 'n/a';
+}
+
+/** The latest of some test dates (ISO dates sort as text). */
+export function latest(dates: readonly string[]): string | undefined {
+  return [...dates].sort().at(-1);
 }

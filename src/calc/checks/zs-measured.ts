@@ -1,25 +1,37 @@
-// Measured Zs against measured_zs_factor × max Zs: the factor allows for the conductors being
-// hotter in service than when tested (0.8 by default, common practice).
+// Measured Zs against the limit of the device that gives fault protection (see fault-protection.ts).
+// Against an overcurrent device: measured Zs ≤ measured_zs_factor × max Zs, the factor allowing
+// for the conductors being hotter in service than when tested (0.8 by default, common practice).
+// Against an RCD on a TT supply: Zs × IΔn ≤ 50 V (IEC 60364-4-41, 411.5.3); the temperature factor
+// is not applied there, the limit being far above any conductor resistance.
 import type { Check } from '../types.js';
 import { fmt } from '../../model/units.js';
-import { notVerified, result, unusable } from './result.js';
+import { faultProtection } from '../fault-protection.js';
+import { numberOf, result, unusable } from './result.js';
 
-export const zsMeasured: Check = ({ readings, derived, rules, maxZsBasis }) => {
-  const m = readings.zs_ohm;
-  const missing = unusable('zs-measured', 'measured Zs', m);
+export const zsMeasured: Check = (ctx) => {
+  const id = 'zs-measured';
+  const m = ctx.readings.zs_ohm;
+  const missing = unusable(id, 'measured Zs', m);
   if (missing) return missing;
-  if (derived.max_zs_ohm === null) return notVerified('zs-measured', `no max Zs to compare with: ${maxZsBasis}`);
-  const limit = rules.measured_zs_factor * derived.max_zs_ohm;
-  const zs = m!.value.kind === 'value' || m!.value.kind === 'at-least' ? m!.value.value : NaN;
-  const rule = `${rules.measured_zs_factor} × max Zs ${fmt(derived.max_zs_ohm)} Ω = ${fmt(limit)} Ω (${maxZsBasis})`;
-  const numbers = { value: zs, limit: Number(limit.toFixed(3)), unit: 'ohm', date: m!.date };
-  if (m!.value.kind === 'at-least') {
-    return zs > limit
-      ? result('zs-measured', 'fail', `measured Zs above ${fmt(zs)} Ω (over range) > ${rule}`, numbers)
-      : result('zs-measured', 'not-verified', `measured Zs over range (> ${fmt(zs)} Ω): cannot show ≤ ${rule}`, numbers);
+  const zs = numberOf(m!);
+  const fp = faultProtection(ctx);
+  if (fp.limit_ohm === null) {
+    return result(id, 'not-verified', `no limit to compare measured Zs ${fmt(zs.value)} Ω with: ${fp.basis}`, { value: zs.value, over_range: zs.kind === 'at-least', unit: 'ohm', date: m!.date });
   }
-  const margin = limit - zs;
-  return zs <= limit
-    ? result('zs-measured', 'pass', `measured Zs ${fmt(zs)} Ω ≤ ${rule}; margin ${fmt(margin)} Ω`, numbers)
-    : result('zs-measured', 'fail', `measured Zs ${fmt(zs)} Ω > ${rule}; over by ${fmt(-margin)} Ω`, numbers);
+  const { rules } = ctx;
+  const limit = fp.by === 'rcd' ? fp.limit_ohm : rules.measured_zs_factor * fp.limit_ohm;
+  const rule = fp.by === 'rcd'
+    ? `${fmt(limit)} Ω (${fp.basis})`
+    : `${rules.measured_zs_factor} × max Zs ${fmt(fp.limit_ohm)} Ω = ${fmt(limit)} Ω (fault protection by the overcurrent device: ${ctx.maxZsBasis})`;
+  const numbers = { value: zs.value, over_range: zs.kind === 'at-least', limit: Number(limit.toFixed(3)), unit: 'ohm', date: m!.date };
+  if (zs.kind === 'at-least') {
+    // ">N" is above N: at or beyond the limit it is a fail
+    return zs.value >= limit
+      ? result(id, 'fail', `measured Zs above ${fmt(zs.value)} Ω (over range) > ${rule}`, numbers)
+      : result(id, 'not-verified', `measured Zs over range (> ${fmt(zs.value)} Ω): cannot show ≤ ${rule}`, numbers);
+  }
+  const margin = limit - zs.value;
+  return zs.value <= limit
+    ? result(id, 'pass', `measured Zs ${fmt(zs.value)} Ω ≤ ${rule}; margin ${fmt(margin)} Ω`, numbers)
+    : result(id, 'fail', `measured Zs ${fmt(zs.value)} Ω > ${rule}; over by ${fmt(-margin)} Ω`, numbers);
 };

@@ -1,19 +1,58 @@
 // The design earth fault: If = U0 × Cmin / Zs at the far end of the circuit (design Zs), and how
-// the protective device answers it (slowest edge of its characteristic).
-import { characteristic, operatingTime, type Device } from '../devices/index.js';
+// the device giving fault protection answers it: the overcurrent device's slowest edge or, on a
+// TT supply with an RCD, the RCD's break time. With the time comes the I²t the cpc must take.
+import { characteristic, energyAt, operatingTime, type Device } from '../devices/index.js';
+import { rcdBreakTime } from '../devices/rcd.js';
+import type { RcdType } from '../../model/schema.js';
 import { fmt } from '../../model/units.js';
 import type { Design } from './index.js';
 
 export type DesignFault =
   | { known: false; why: string }
-  | { known: true; current_a: number; basis: string; device_known: boolean; time_s: number | null };
+  | {
+    known: true;
+    current_a: number;
+    basis: string;
+    /** the device that opens: "mcb:B 32 A" or "the 30 mA RCD" */
+    opener: string;
+    /** false where the library has no characteristic for it */
+    device_known: boolean;
+    /** slowest operating time; null where it is not known to operate at this current */
+    time_s: number | null;
+    /** why the time is what it is */
+    timeBasis: string;
+    /** energy let through, for the adiabatic check (null where it does not operate) */
+    energy: { i2t_a2s: number; basis: string } | null;
+  };
 
-export function designFault(design: Design, device: Device, u0: number, cmin: number): DesignFault {
+export interface FaultOptions {
+  u0: number;
+  cmin: number;
+  /** the RCD that gives fault protection (TT supplies), if any */
+  rcd: { ma: number; type: RcdType | undefined } | null;
+}
+
+export function designFault(design: Design, device: Device, o: FaultOptions): DesignFault {
   if (!design.zs) {
     return { known: false, why: design.source ? 'no conductor resistance for these sizes in IEC 60228' : 'no Ze for the supply and no Zdb for the board' };
   }
-  const current = (u0 * cmin) / design.zs.ohm;
-  const basis = `If = U0 ${u0} V × Cmin ${cmin} / design Zs ${fmt(design.zs.ohm)} Ω = ${fmt(current)} A`;
+  const current = (o.u0 * o.cmin) / design.zs.ohm;
+  const basis = `If = U0 ${o.u0} V × Cmin ${o.cmin} / design Zs ${fmt(design.zs.ohm)} Ω = ${fmt(current)} A`;
+  if (o.rcd) {
+    const t = rcdBreakTime(o.rcd.ma, o.rcd.type, current);
+    return {
+      known: true, current_a: current, basis, opener: `the ${fmt(o.rcd.ma)} mA RCD`, device_known: true,
+      time_s: t?.time_s ?? null,
+      timeBasis: t ? t.basis : `below IΔn ${o.rcd.ma} mA the RCD need not break`,
+      energy: t ? { i2t_a2s: current ** 2 * t.time_s, basis: `I²t = ${fmt(current)}² × ${t.time_s} s = ${fmt(current ** 2 * t.time_s)} A²s (${t.basis})` } : null,
+    };
+  }
+  const opener = `${device.code} ${fmt(device.rating_a)} A`;
   const device_known = characteristic(device) !== null;
-  return { known: true, current_a: current, basis, device_known, time_s: device_known ? operatingTime(device, current).slowest_s : null };
+  const time = device_known ? operatingTime(device, current).slowest_s : null;
+  return {
+    known: true, current_a: current, basis, opener, device_known, time_s: time,
+    timeBasis: 'slowest edge of its characteristic',
+    energy: time === null ? null : energyAt(device, current),
+  };
 }

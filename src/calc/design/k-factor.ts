@@ -3,6 +3,9 @@
 import { K_TABULATED, MATERIAL_CONSTANTS, PROTECTIVE_TEMPS } from '../../reference/protective-conductor.js';
 import type { Insulation, Material } from '../../reference/conductors.js';
 
+/** the adiabatic equation holds for disconnection within 5 s (IEC 60364-5-54, 543.1.2) */
+export const ADIABATIC_LIMIT_S = 5;
+
 export function kFormula(material: Material, initialC: number, finalC: number): number {
   const { beta_c, qc, rho20 } = MATERIAL_CONSTANTS[material];
   return Math.sqrt(((qc * (beta_c + 20)) / rho20) * Math.log(1 + (finalC - initialC) / (beta_c + initialC)));
