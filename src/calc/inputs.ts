@@ -1,20 +1,13 @@
 // Inputs the calculation cannot work with: a size, method or condition outside the published
-// tables. They are input errors (the folder must be corrected), never guesses. Pure: the caller
-// locates each problem in circuits.csv by its row and field.
-import type { Project } from '../model/validate.js';
+// tables. They are input errors (the folder must be corrected), never guesses. Pure: validation
+// takes these rules and locates each problem in circuits.csv.
+import type { Circuit } from '../model/schema.js';
+import type { CircuitRule } from '../model/validate.js';
 import { capacityOf } from './design/capacity.js';
 
-export interface InputProblem {
-  row: number;
-  field: string;
-  message: string;
-}
+export const outOfTable: CircuitRule = (c: Circuit) => {
+  const cap = capacityOf(c);
+  return cap.ok ? null : { field: cap.field, message: cap.message };
+};
 
-export function inputProblems(project: Project): InputProblem[] {
-  const problems: InputProblem[] = [];
-  for (const c of project.circuits) {
-    const cap = capacityOf(c);
-    if (!cap.ok) problems.push({ row: c.row, field: cap.field, message: cap.message });
-  }
-  return problems;
-}
+export const CALC_RULES: readonly CircuitRule[] = [outOfTable];

@@ -92,7 +92,10 @@ function tableRows<S extends z.ZodType>(
   return out;
 }
 
-export function validate(job: RawJob): Validation {
+/** A further rule on a valid circuit row (e.g. the calculation's tables), injected by the caller. */
+export type CircuitRule = (circuit: Circuit) => { field: string; message: string } | null;
+
+export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = []): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
   errors.push(...yErrors);
@@ -120,12 +123,18 @@ export function validate(job: RawJob): Validation {
       } else seen.set(key, r.row);
       known.add(key);
     }
+    const rules: CircuitRule[] = [
+      (c) => { const m = ratingProblem(c.device, c.rating_a); return m ? { field: 'rating_a', message: m } : null; },
+      ...circuitRules,
+    ];
     for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors)) {
-      const problem = ratingProblem(values.device, values.rating_a);
-      if (problem) {
-        const column = table.rows.find((r) => r.row === row)?.cells.rating_a?.column ?? 1;
-        errors.push({ file: table.file, row, column, message: `rating_a: ${problem}` });
-      } else if (!duplicate.has(row)) circuits.push({ ...values, row });
+      const problems = rules.map((rule) => rule(values)).filter((p) => p !== null);
+      const cells = table.rows.find((r) => r.row === row)?.cells;
+      for (const p of problems) {
+        const column = cells?.[p.field]?.column ?? table.header.find((h) => h.text === p.field)?.column ?? 1;
+        errors.push({ file: table.file, row, column, message: `${p.field}: ${p.message}` });
+      }
+      if (problems.length === 0 && !duplicate.has(row)) circuits.push({ ...values, row });
     }
   }
 
