@@ -8,7 +8,7 @@ import { build, defaultJobs } from './build.js';
 import { NO_CHROMIUM_HELP } from './print/browser.js';
 
 const USAGE = `usage:
-  packsmith build [job-folder...] [--out DIR]   render draft packs (HTML and PDF) into DIR (default out/)
+  packsmith build [job-folder...] [--out DIR] [--force]   render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are skipped unless --force
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
 `;
 
@@ -38,14 +38,15 @@ function check(args: string[]): Exit {
 }
 
 async function buildCommand(args: string[]): Promise<Exit> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' } } });
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' }, force: { type: 'boolean', default: false } } });
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('no job folders given and none found under projects/\n');
     return 2;
   }
-  const r = await build({ jobs, out: values.out! });
+  const r = await build({ jobs, out: values.out!, force: values.force! });
   for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
+  for (const s of r.skipped) process.stdout.write(`${s.job}: unchanged, kept ${s.dir}\n`);
   if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);
   return r.invalid.length > 0 ? 2 : 0;
 }
