@@ -6,10 +6,15 @@ import { formatError } from './load/raw.js';
 import { assessmentText } from './render/text.js';
 import { build, defaultJobs } from './build.js';
 import { NO_CHROMIUM_HELP } from './print/browser.js';
+import { issueCommand } from './commands/issue.js';
+import { verifyCommand } from './commands/verify.js';
 
 const USAGE = `usage:
   packsmith build [job-folder...] [--out DIR] [--force]   render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are skipped unless --force
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
+  packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR]
+                                                freeze the next revision into DIR/<job>/rev-N/; exit 0 issued, 1 refused, 2 invalid input
+  packsmith verify [DIR]                        re-hash every issued revision in DIR (default out/); exit 1 on any finding
 `;
 
 type Exit = 0 | 1 | 2;
@@ -56,6 +61,8 @@ async function main(argv: string[]): Promise<Exit> {
   switch (command) {
     case 'check': return check(rest);
     case 'build': return buildCommand(rest);
+    case 'issue': return issueCommand(rest);
+    case 'verify': return verifyCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;

@@ -56,6 +56,18 @@ describe('packsmith build, incrementally', () => {
     expect(rebuilt(build())).toEqual(['failing-job']);
     expect(existsSync(join(out, 'failing-job/draft/pack.pdf'))).toBe(true);
   });
+
+  it('rebuilds the draft when a revision is issued, and the draft then shows the changes since it', () => {
+    expect(packsmith(['issue', a, '--by', 'T. Marwood', '--date', '2026-10-12', '--accept-open-items', '--out', out]).code).toBe(0);
+    expect(rebuilt(build())).toEqual(['archive-job']);
+    let html = readFileSync(join(out, 'archive-job/draft/pack.html'), 'utf8');
+    expect(html).toContain('<h2>Changes since Revision 1</h2>');
+    expect(html).toContain('No circuit, reading, verdict or design value changed.');
+    edit(a, 'readings/2026-10-09.csv', 'ok,0.64,', 'ok,0.66,');
+    build();
+    html = readFileSync(join(out, 'archive-job/draft/pack.html'), 'utf8');
+    expect(html).toMatch(/<td>DB1<\/td><td>2<\/td><td>zs_ohm<\/td><td>0\.64 Ω on 2026-10-09<\/td><td>0\.66 Ω on 2026-10-09<\/td>/);
+  });
 });
 
 describe('the archive site', () => {
@@ -66,7 +78,7 @@ describe('the archive site', () => {
     const index = page('index.html');
     const rows = index.split('<tr>').slice(2);
     expect(rows).toHaveLength(2);
-    expect(rows[0]).toMatch(/Lantern Yard workshop additions[\s\S]*none issued[\s\S]*not verified \(draft\)/);
+    expect(rows[0]).toMatch(/Lantern Yard workshop additions[\s\S]*Revision 1, 2026-10-12[\s\S]*not verified[\s\S]*Revision 1: 2026-10-12/);
     expect(rows[1]).toMatch(/none issued[\s\S]*open items \(draft\)[\s\S]*1 fail/);
   });
 
@@ -79,7 +91,7 @@ describe('the archive site', () => {
         expect(existsSync(join(out, dirname(p), h))).toBe(true);
       }
     }
-    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/index.html', 'archive-job/draft/pack.pdf', 'failing-job/draft/pack.pdf']));
-    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', 'draft/pack.html', 'draft/pack.pdf']);
+    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/rev-1/pack.html', 'archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
+    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', 'rev-1/pack.html', 'rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
   });
 });
