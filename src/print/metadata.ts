@@ -2,7 +2,6 @@
 // in its creation and modification dates, so both are set to the pack's date and the producer
 // fields are fixed; title, author (the firm) and subject (the job) are set, and data.json rides
 // along as an embedded file.
-import { PDFDocument } from 'pdf-lib';
 
 export interface PdfMetadata {
   title: string;
@@ -26,6 +25,7 @@ export function dayOf(date: string): Date {
 }
 
 export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {
+  const { PDFDocument } = await import('pdf-lib'); // loaded only by a run that prints
   const doc = await PDFDocument.load(pdf, { updateMetadata: false });
   const when = dayOf(meta.date);
   doc.setTitle(meta.title);

@@ -27,7 +27,7 @@ function seeded(seed: number): () => number {
 }
 
 /** Kills at moments spread over one run's length, besides one at every named step. */
-const SPREAD = 10;
+const SPREAD = 8;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const issueArgs = (root: string) => ['issue', join(root, JOB), '--by', 'T. Marwood', '--date', '2026-10-12', '--accept-open-items', '--out', join(root, 'out')];
 
