@@ -1,25 +1,36 @@
-// `build`: every job folder → DIR/<job>/draft/pack.html and pack.pdf, then DIR/index.html.
-// One Chromium serves the whole build; without one, the HTML is still written.
-import { mkdirSync, writeFileSync, existsSync, readdirSync, statSync } from 'node:fs';
+// `build`: every job folder → DIR/<job>/draft/pack.html and pack.pdf, then the archive site.
+// Incremental: a job whose draft was built from the same inputs, templates, packsmith version and
+// latest revision is skipped (--force builds it anyway). One Chromium serves the whole build,
+// started only when something needs printing; without one, the HTML is still written.
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
-import { renderPack } from './render/pack.js';
-import { createEngine } from './render/engine.js';
-import { overallStatus, STATUS_LOOK } from './render/view.js';
-import { findChromium, launchBrowser, type PrintBrowser } from './print/browser.js';
-import { printPdf } from './print/pdf.js';
-import { renderSite, type SiteEntry } from './archive/site.js';
+import { createEngine, BUILTIN_TEMPLATES } from './render/engine.js';
+import { findChromium } from './print/browser.js';
+import { packData, dataBytes } from './archive/data.js';
+import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
+import { inspectJob } from './archive/verify.js';
+import { changesSince } from './archive/previous.js';
+import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
+import { writeReplacing } from './archive/files.js';
+import { writeSite } from './archive/site.js';
+import { lazyBrowser, packHtml, packPdf } from './produce.js';
+import { VERSION } from './version.js';
 
 export interface BuildOptions {
   jobs: string[];
   out: string;
+  /** rebuild every job, changed or not */
+  force?: boolean;
   /** where messages go (stderr by default) */
   log?: (line: string) => void;
 }
 
 export interface BuildResult {
   built: { job: string; html: string; pdf: string | null }[];
+  /** jobs whose draft was already up to date */
+  skipped: { job: string; dir: string }[];
   invalid: { job: string; errors: LocatedError[] }[];
   pdfSkipped: boolean;
 }
@@ -38,19 +49,29 @@ function lastTestDate(sessions: { date: string }[], fallback: string | undefined
   return sessions.length ? sessions[sessions.length - 1]!.date : fallback ?? 'no tests recorded';
 }
 
+/** The PDF's dates: the draft's date, or a fixed one when the job has no date at all (never the clock). */
+const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '1970-01-01');
+
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
   const out = resolve(opts.out);
   const engine = createEngine();
-  const result: BuildResult = { built: [], invalid: [], pdfSkipped: false };
+  const templatesHash = combinedHash(fileHashes(readTree(BUILTIN_TEMPLATES)));
+  const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
   const chromium = findChromium();
-  let browser: PrintBrowser | null = null;
-  const site: SiteEntry[] = [];
+  const browser = chromium ? lazyBrowser(chromium) : null;
+  const names = new Map<string, string>();
   try {
-    if (chromium) browser = await launchBrowser(chromium);
-    else result.pdfSkipped = true;
     for (const dir of opts.jobs) {
       const job = loadJob(dir);
+      const twin = names.get(job.raw.name);
+      if (twin !== undefined) {
+        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${job.raw.name}/` };
+        result.invalid.push({ job: job.raw.name, errors: [e] });
+        log(formatError(e));
+        continue;
+      }
+      names.set(job.raw.name, dir);
       if (!job.ok) {
         result.invalid.push({ job: job.raw.name, errors: job.errors });
         for (const e of job.errors) log(`${job.raw.name}/${formatError(e)}`);
@@ -58,29 +79,46 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       }
       const { project, assessment } = job;
       const target = join(out, project.name, 'draft');
+      const latest = inspectJob(out, project.name).revisions.at(-1) ?? null;
+      const fingerprint: Fingerprint = {
+        packsmith: VERSION,
+        input_hash: combinedHash(fileHashes(job.raw.files)),
+        templates_hash: templatesHash,
+        base_revision: latest?.number ?? null,
+        pdf: browser !== null,
+      };
+      if (!opts.force && upToDate(target, readStamp(target), fingerprint)) {
+        result.skipped.push({ job: project.name, dir: target });
+        continue;
+      }
+      const date = lastTestDate(project.sessions, project.file.dates.completed);
+      const label = { label: 'DRAFT', draft: true, date };
+      const data = dataBytes(packData(project, assessment, VERSION, null));
+      const since = changesSince(latest, JSON.parse(data), null);
+      if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
+      const html = packHtml(project, assessment, label, since.ok ? since.changes : null, engine);
+
       mkdirSync(target, { recursive: true });
-      const html = renderPack(project, assessment, {
-        revisionLabel: 'DRAFT',
-        draft: true,
-        date: lastTestDate(project.sessions, project.file.dates.completed),
-      }, engine);
+      rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       const htmlPath = join(target, 'pack.html');
-      writeFileSync(htmlPath, html);
+      writeReplacing(htmlPath, html);
+      const outputs: Record<string, string> = { 'pack.html': sha256(html) };
       let pdfPath: string | null = null;
       if (browser) {
-        const { pdf } = await printPdf(browser.browser, htmlPath, { footerLeft: project.file.title, footerMiddle: 'DRAFT' });
+        const pdf = await packPdf(await browser.get(), htmlPath, project, { ...label, date: pdfDate(date) }, data);
         pdfPath = join(target, 'pack.pdf');
-        writeFileSync(pdfPath, pdf);
+        writeReplacing(pdfPath, pdf);
+        outputs['pack.pdf'] = sha256(pdf);
+      } else {
+        result.pdfSkipped = true;
+        rmSync(join(target, 'pack.pdf'), { force: true }); // never leave a PDF of other inputs beside this HTML
       }
+      writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, title: project.file.title, date, summary: assessment.summary, outputs }));
       result.built.push({ job: project.name, html: htmlPath, pdf: pdfPath });
-      const links = [{ label: 'draft (HTML)', href: `${project.name}/draft/pack.html` }];
-      if (pdfPath) links.push({ label: 'draft (PDF)', href: `${project.name}/draft/pack.pdf` });
-      site.push({ job: project.name, title: project.file.title, status: STATUS_LOOK[overallStatus(assessment)].word, links });
     }
   } finally {
     await browser?.close();
   }
-  mkdirSync(out, { recursive: true });
-  writeFileSync(join(out, 'index.html'), renderSite(site));
+  writeSite(out);
   return result;
 }

@@ -7,11 +7,16 @@ import { assessmentText } from './render/text.js';
 import { build, defaultJobs } from './build.js';
 import { NO_CHROMIUM_HELP } from './print/browser.js';
 import { deviceCommand } from './commands/device.js';
+import { issueCommand } from './commands/issue.js';
+import { verifyCommand } from './commands/verify.js';
 
 const USAGE = `usage:
-  packsmith build [job-folder...] [--out DIR]   render draft packs (HTML and PDF) into DIR (default out/)
+  packsmith build [job-folder...] [--out DIR] [--force]   render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are skipped unless --force
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
   packsmith device <code> <rating> [--at AMPS] [--within SECONDS] [--u0 V] [--cmin C] [--json]   look up a device's characteristic
+  packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR]
+                                                freeze the next revision into DIR/<job>/rev-N/; exit 0 issued, 1 refused, 2 invalid input
+  packsmith verify [DIR]                        re-hash every issued revision in DIR (default out/); exit 1 on any finding
 `;
 
 type Exit = 0 | 1 | 2;
@@ -40,14 +45,15 @@ function check(args: string[]): Exit {
 }
 
 async function buildCommand(args: string[]): Promise<Exit> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' } } });
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' }, force: { type: 'boolean', default: false } } });
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('no job folders given and none found under projects/\n');
     return 2;
   }
-  const r = await build({ jobs, out: values.out! });
+  const r = await build({ jobs, out: values.out!, force: values.force! });
   for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
+  for (const s of r.skipped) process.stdout.write(`${s.job}: unchanged, kept ${s.dir}\n`);
   if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);
   return r.invalid.length > 0 ? 2 : 0;
 }
@@ -58,6 +64,8 @@ async function main(argv: string[]): Promise<Exit> {
     case 'check': return check(rest);
     case 'build': return buildCommand(rest);
     case 'device': return deviceCommand(rest);
+    case 'issue': return issueCommand(rest);
+    case 'verify': return verifyCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;

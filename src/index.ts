@@ -7,4 +7,7 @@ export { renderPack } from './render/pack.js';
 export { printPdf } from './print/pdf.js';
 export { launchBrowser, findChromium } from './print/browser.js';
 export { build } from './build.js';
+export { issueRevision, type IssueOptions, type IssueResult } from './issue.js';
+export { verifyArchive, type Finding } from './archive/verify.js';
+export { writeSite } from './archive/site.js';
 export type { Assessment, CheckResult, Status } from './calc/types.js';

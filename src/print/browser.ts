@@ -40,6 +40,8 @@ export async function launchBrowser(executablePath: string): Promise<PrintBrowse
   const browser = await puppeteer.launch({
     executablePath,
     headless: true,
+    // Over a pipe, Chromium ends with packsmith even when packsmith is killed outright.
+    pipe: true,
     args: [...CHROMIUM_FLAGS, `--user-data-dir=${profile}`],
   });
   return {

@@ -22,6 +22,23 @@ export interface RenderOptions {
   draft: boolean;
   /** the date printed on the cover (issue date; for drafts the last test date) */
   date: string;
+  /** what changed since the previous revision (the archive computes it); null: nothing to compare */
+  changes?: Changes | null;
+}
+
+/** Changes since the previous revision, as the archive found them (values already shown with units). */
+export interface Changes {
+  /** the revision compared with; null in revision 1 */
+  since: { revision: number; date: string } | null;
+  /** who issued this revision, when and why; null in a draft */
+  issued: { by: string; date: string; reason: string | null } | null;
+  circuitsAdded: { board: string; ref: string; description: string }[];
+  circuitsRemoved: { board: string; ref: string; description: string }[];
+  design: { board: string; ref: string; field: string; before: string; after: string }[];
+  readings: { board: string; ref: string; field: string; before: string; after: string }[];
+  verdicts: { board: string; ref: string; check: string; before: Status; after: Status }[];
+  /** project.yaml and notes.md: supply, rules, boards, parties */
+  job: { field: string; before: string; after: string }[];
 }
 
 const look = (s: Status) => ({ status: s, ...STATUS_LOOK[s] });
@@ -39,7 +56,7 @@ export function historyLine(k: CheckResult): string | null {
   }).join(', ');
 }
 
-function showReading(field: MeasuredField, r: Reading): string {
+export function showReading(field: MeasuredField, r: Reading): string {
   const unit = symbolOf(MEASURED[field]);
   switch (r.kind) {
     case 'value': return `${fmt(r.value)} ${unit}`;
@@ -67,7 +84,7 @@ function readingRows(readings: CircuitReadings) {
   return rows;
 }
 
-export function overallStatus(a: Assessment): Status {
+export function overallStatus(a: Pick<Assessment, 'summary'>): Status {
   if (a.summary.fail > 0) return 'fail';
   if (a.summary['not-verified'] > 0) return 'not-verified';
   if (a.summary.attention > 0) return 'attention';
@@ -133,6 +150,16 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     boards,
     sessions: project.sessions,
     notesHtml: project.notes ? markdownToHtml(project.notes) : null,
+    changes: opts.changes ? changesView(opts.changes) : null,
+  };
+}
+
+function changesView(c: Changes) {
+  const count = c.circuitsAdded.length + c.circuitsRemoved.length + c.design.length + c.readings.length + c.verdicts.length + c.job.length;
+  return {
+    ...c,
+    verdicts: c.verdicts.map((v) => ({ ...v, before: look(v.before), after: look(v.after) })),
+    count,
   };
 }
 

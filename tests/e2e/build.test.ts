@@ -4,7 +4,8 @@ import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { packsmith } from '../helpers/cli.js';
-import { pdfText } from '../helpers/pdf.js';
+import { pdfInfo, pdfText } from '../helpers/pdf.js';
+import { sha } from '../helpers/archive.js';
 import { readJob } from '../../src/load/job.js';
 import { validate } from '../../src/model/validate.js';
 
@@ -36,6 +37,23 @@ describe('packsmith build (demo job)', () => {
       expect(t).toContain('DRAFT');
       expect(t).toContain(`page ${i + 1} of ${pages}`);
     });
+  });
+
+  it('gives the same SHA-256 for pack.html and pack.pdf when built again into another folder', () => {
+    const again = mkdtempSync(join(tmpdir(), 'packsmith-e2e-again-'));
+    expect(packsmith(['build', DEMO, '--out', again]).code).toBe(0);
+    for (const f of ['pack.html', 'pack.pdf']) {
+      expect(sha(join(again, 'tannery-row-refit/draft', f))).toBe(sha(join(out, 'tannery-row-refit/draft', f)));
+    }
+  });
+
+  it('dates the draft PDF by its last test session and names the firm and the job', async () => {
+    const { info, attachments } = await pdfInfo(readFileSync(join(out, 'tannery-row-refit/draft/pack.pdf')));
+    expect(info).toMatchObject({
+      Title: 'Tannery Row coffee house refit — DRAFT', Author: 'Quillon & Hart Electrical Ltd', Subject: 'tannery-row-refit',
+      CreationDate: 'D:20261120000000Z', ModDate: 'D:20261120000000Z',
+    });
+    expect(JSON.parse(attachments['data.json']!.toString())).toMatchObject({ job: 'tannery-row-refit', revision: null });
   });
 
   it('writes the HTML and says how to get PDFs when no Chromium is found', () => {

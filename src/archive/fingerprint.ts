@@ -1,0 +1,55 @@
+// What a draft was built from (draft/build.json): packsmith's version, the input hash, the
+// templates, the revision its changes section compares with, and the hashes of what was written.
+// A build whose fingerprint matches, with its files intact, need not run again.
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { z } from 'zod';
+import { sha256 } from './hash.js';
+import { parseJson } from './json.js';
+import { SummarySchema } from './manifest.js';
+
+export const STAMP_FILE = 'build.json';
+
+const FingerprintSchema = z.object({
+  packsmith: z.string(),
+  input_hash: z.string(),
+  templates_hash: z.string(),
+  /** the revision the changes section compares with (null: none issued) */
+  base_revision: z.number().nullable(),
+  /** whether a PDF was printed */
+  pdf: z.boolean(),
+});
+export type Fingerprint = z.output<typeof FingerprintSchema>;
+
+const StampSchema = z.object({
+  format: z.literal('packsmith-build/1'),
+  fingerprint: FingerprintSchema,
+  title: z.string(),
+  date: z.string(),
+  summary: SummarySchema,
+  outputs: z.record(z.string(), z.string()),
+});
+export type Stamp = z.output<typeof StampSchema>;
+
+export function readStamp(draftDir: string): Stamp | null {
+  const path = join(draftDir, STAMP_FILE);
+  if (!existsSync(path)) return null;
+  const parsed = parseJson(readFileSync(path, 'utf8'));
+  const r = parsed.ok ? StampSchema.safeParse(parsed.value) : null;
+  return r?.success ? r.data : null;
+}
+
+export const stampBytes = (s: Stamp): string => `${JSON.stringify(s, null, 2)}\n`;
+
+/** The draft in `draftDir` was made from `want` and its files are as written. A PDF-less draft is stale once Chromium can print. */
+export function upToDate(draftDir: string, stamp: Stamp | null, want: Fingerprint): boolean {
+  if (!stamp) return false;
+  const have = stamp.fingerprint;
+  const same = have.packsmith === want.packsmith && have.input_hash === want.input_hash && have.templates_hash === want.templates_hash &&
+    have.base_revision === want.base_revision && (have.pdf || !want.pdf);
+  if (!same) return false;
+  return Object.entries(stamp.outputs).every(([name, hash]) => {
+    const path = join(draftDir, name);
+    return existsSync(path) && sha256(readFileSync(path)) === hash;
+  });
+}

@@ -1,0 +1,222 @@
+// `issue`: freeze the next revision of a job into DIR/<job>/rev-N/ (pack.html, pack.pdf,
+// data.json, manifest.json) and record it in the job's revisions.yaml. Refused, with the reason,
+// when the job has errors, when nothing changed since the last revision, when the archive does
+// not check out, or when checks fail or are not verified (unless open items are accepted).
+import { join, resolve } from 'node:path';
+import { loadJob } from './job.js';
+import { formatError } from './load/raw.js';
+import type { Project } from './model/validate.js';
+import type { Assessment } from './calc/types.js';
+import { createEngine, BUILTIN_TEMPLATES } from './render/engine.js';
+import { findChromium, NO_CHROMIUM_HELP } from './print/browser.js';
+import { dayOf } from './print/metadata.js';
+import { packData, dataBytes, type RevisionInfo } from './archive/data.js';
+import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
+import { inspectJob, type JobArchive } from './archive/verify.js';
+import { changesSince } from './archive/previous.js';
+import { manifestBytes, type Manifest } from './archive/manifest.js';
+import { readRecord, recordEntry, writeRecord, revisionDirName, type RecordEntry } from './archive/revisions.js';
+import { openStaging } from './archive/freeze.js';
+import { clearStale } from './archive/files.js';
+import { step } from './archive/steps.js';
+import { writeSite } from './archive/site.js';
+import { lazyBrowser, packHtml, packPdf } from './produce.js';
+import { VERSION } from './version.js';
+
+export interface IssueOptions {
+  /** the job folder */
+  job: string;
+  /** the archive folder (out/) */
+  out: string;
+  by: string;
+  /** YYYY-MM-DD */
+  date: string;
+  reason: string | null;
+  acceptOpenItems: boolean;
+}
+
+export type IssueResult =
+  | { ok: true; revision: number; dir: string; files: string[]; openItems: number; notes: string[] }
+  | { ok: false; code: 1 | 2; reasons: string[] };
+
+const refuse = (code: 1 | 2, ...reasons: string[]): IssueResult => ({ ok: false, code, reasons });
+
+/** A YYYY-MM-DD that is a real day. */
+export function isIsoDay(s: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(s)) return false;
+  try {
+    return dayOf(s).toISOString().slice(0, 10) === s;
+  } catch {
+    return false;
+  }
+}
+
+const MAX_LISTED = 12;
+
+function openItemsText(assessment: Assessment): string[] {
+  const open = (status: 'fail' | 'not-verified') => assessment.circuits.flatMap((c) => c.checks.filter((k) => k.status === status).map((k) => `  ${c.board} circuit ${c.ref} ${k.id}: ${status} (${k.basis})`));
+  const items = [...open('fail'), ...open('not-verified')];
+  return items.length > MAX_LISTED ? [...items.slice(0, MAX_LISTED), `  ... and ${items.length - MAX_LISTED} more (packsmith check lists them all)`] : items;
+}
+
+/** The archive and revisions.yaml must agree before anything is added to them. */
+function consistency(where: string, project: Project, archive: JobArchive, record: RecordEntry[]): IssueResult | null {
+  if (archive.findings.length > 0) {
+    return refuse(1, `the archive of ${project.name} does not check out, so no revision is added to it:`, ...archive.findings.map((f) => `  ${f.path}: ${f.problem}`), 'run packsmith verify and restore the revision from a copy');
+  }
+  const held = new Map(archive.revisions.map((r) => [r.number, r]));
+  for (const e of record) {
+    const r = held.get(e.revision);
+    if (!r) return refuse(1, `revisions.yaml records revision ${e.revision}, which ${where} does not hold: issue into the archive that holds it (--out), or restore it there`);
+    if (r.manifest.input_hash !== e.input_hash) return refuse(1, `revisions.yaml's revision ${e.revision} was issued from other inputs than ${where}/${revisionDirName(e.revision)}: this archive belongs to another job folder of the same name`);
+  }
+  return null;
+}
+
+/** The reasons not to issue now, or none. */
+function readiness(opts: IssueOptions, project: Project, assessment: Assessment, inputHash: string, archive: JobArchive): IssueResult | null {
+  const latest = archive.revisions.at(-1);
+  if (latest && latest.manifest.input_hash === inputHash) {
+    return refuse(1, `nothing changed since Revision ${latest.number} (issued ${latest.manifest.revision.date}): the job's files are the same (input hash ${inputHash}), so no new revision was issued`);
+  }
+  if (latest && opts.date < latest.manifest.revision.date) {
+    return refuse(1, `issue date ${opts.date} is before Revision ${latest.number}'s (${latest.manifest.revision.date}); a revision is never dated before the one it follows`);
+  }
+  const lastTest = project.sessions.at(-1)?.date;
+  if (lastTest && opts.date < lastTest) return refuse(1, `issue date ${opts.date} is before the last test session (${lastTest}); a pack is issued after its tests`);
+  const s = assessment.summary;
+  if (!opts.acceptOpenItems && (s.fail > 0 || s['not-verified'] > 0)) {
+    return refuse(
+      1,
+      `${project.name} has ${[s.fail && `${s.fail} failed`, s['not-verified'] && `${s['not-verified']} not verified`].filter(Boolean).join(' and ')} check${s.fail + s['not-verified'] === 1 ? '' : 's'}, so no revision was issued:`,
+      ...openItemsText(assessment),
+      'put them right and re-test, or issue with --accept-open-items to hand over a pack that lists them first',
+    );
+  }
+  return null;
+}
+
+/**
+ * Bring revisions.yaml in line with the archive: every revision it holds, from its manifest.
+ * Returns the revisions it had to add, other than `issued` (left out by an interrupted run).
+ */
+function record(jobDir: string, out: string, job: string, before: RecordEntry[], issued: number | null): number[] {
+  let held = inspectJob(out, job).revisions;
+  for (let round = 0; round < 3; round++) {
+    const entries = new Map(before.map((e) => [e.revision, e]));
+    for (const r of held) entries.set(r.number, recordEntry(r.manifest));
+    writeRecord(jobDir, [...entries.values()], () => step('recording'));
+    step('recorded');
+    const now = inspectJob(out, job).revisions;
+    if (now.length === held.length) break;
+    held = now; // another run committed a revision meanwhile: write again with it
+  }
+  const known = new Set(before.map((e) => e.revision));
+  return held.map((r) => r.number).filter((n) => n !== issued && !known.has(n));
+}
+
+const restored = (numbers: number[]): string[] =>
+  numbers.map((n) => `revisions.yaml: revision ${n} restored from its manifest (an earlier issue was interrupted before recording it)`);
+
+export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
+  if (!opts.by.trim()) return refuse(2, '--by needs the name of the person issuing the pack');
+  if (!isIsoDay(opts.date)) return refuse(2, `found issue date "${opts.date}"; expected a date as YYYY-MM-DD`);
+  const job = loadJob(opts.job);
+  if (!job.ok) return refuse(2, ...job.errors.map((e) => `${job.raw.name}/${formatError(e)}`), `${job.errors.length} problem(s) in ${job.raw.name}: nothing was issued`);
+  const chromium = findChromium();
+  if (!chromium) return refuse(2, `${NO_CHROMIUM_HELP} A revision needs its PDF, so nothing was issued.`);
+  const { project, assessment } = job;
+  const out = resolve(opts.out);
+  const jobDir = job.raw.dir;
+  const jobOut = join(out, project.name);
+  const inputs = fileHashes(job.raw.files);
+  const inputHash = combinedHash(inputs);
+  const templatesHash = combinedHash(fileHashes(readTree(BUILTIN_TEMPLATES)));
+  const engine = createEngine();
+  const browser = lazyBrowser(chromium);
+  // what interrupted runs left: working folders beside the revisions, a revisions.yaml replacement
+  clearStale(jobOut);
+  clearStale(jobDir);
+  const notes: string[] = [];
+  try {
+    for (let attempt = 0; attempt < 5; attempt++) {
+      const archive = inspectJob(out, project.name);
+      const rec = readRecord(jobDir);
+      if (!rec.ok) return refuse(2, ...rec.errors.map((e) => `${project.name}/${formatError(e)}`));
+      const inconsistent = consistency(join(opts.out, project.name), project, archive, rec.entries);
+      if (inconsistent) return inconsistent;
+      let entries = rec.entries;
+      if (archive.revisions.length > entries.length) {
+        notes.push(...restored(record(jobDir, out, project.name, entries, null)));
+        entries = archive.revisions.map((r) => recordEntry(r.manifest));
+      }
+      const notReady = readiness(opts, project, assessment, inputHash, archive);
+      if (notReady && !notReady.ok) return { ...notReady, reasons: [...notes, ...notReady.reasons] };
+      step('loaded');
+
+      const latest = archive.revisions.at(-1) ?? null;
+      const n = (latest?.number ?? 0) + 1;
+      const info: RevisionInfo = { number: n, date: opts.date, by: opts.by.trim(), reason: opts.reason?.trim() || null };
+      const label = { label: `Revision ${n}`, draft: false, date: opts.date };
+      const data = dataBytes(packData(project, assessment, VERSION, info));
+      const since = changesSince(latest, JSON.parse(data), { by: info.by, date: info.date, reason: info.reason });
+      if (!since.ok) return refuse(1, `cannot compare with Revision ${latest?.number}: ${since.why}; run packsmith verify`);
+      const html = packHtml(project, assessment, label, since.changes, engine);
+      step('rendered');
+
+      const staging = openStaging(jobOut);
+      let committed = false;
+      try {
+        step('staging');
+        const htmlPath = staging.add('pack.html', html);
+        step('wrote-html');
+        const pdf = await packPdf(await browser.get(), htmlPath, project, label, data);
+        step('printed');
+        staging.add('pack.pdf', pdf);
+        step('wrote-pdf');
+        staging.add('data.json', data);
+        step('wrote-data');
+        const manifest: Manifest = {
+          format: 'packsmith-manifest/1',
+          packsmith: VERSION,
+          job: project.name,
+          title: project.file.title,
+          firm: project.file.installer.firm,
+          revision: { ...info, accepted_open_items: opts.acceptOpenItems && assessment.summary.fail + assessment.summary['not-verified'] > 0 },
+          rules: { ...assessment.rules },
+          summary: assessment.summary,
+          previous: latest ? { revision: latest.number, manifest_sha256: latest.manifestSha } : null,
+          input_hash: inputHash,
+          inputs,
+          templates_hash: templatesHash,
+          outputs: { 'pack.html': sha256(html), 'pack.pdf': sha256(pdf), 'data.json': sha256(data) },
+        };
+        staging.add('manifest.json', manifestBytes(manifest));
+        step('wrote-manifest');
+        staging.seal();
+        step('sealed');
+        step('committing');
+        if (staging.commit(n) === 'taken') continue; // another run issued revision n meanwhile: look again
+        committed = true;
+      } finally {
+        if (!committed) staging.discard();
+      }
+      step('committed');
+      notes.push(...restored(record(jobDir, out, project.name, entries, n)));
+      writeSite(out);
+      step('done');
+      const s = assessment.summary;
+      return {
+        ok: true,
+        revision: n,
+        dir: join(jobOut, revisionDirName(n)),
+        files: ['pack.html', 'pack.pdf', 'data.json', 'manifest.json'],
+        openItems: s.fail + s['not-verified'],
+        notes,
+      };
+    }
+    return refuse(1, 'other runs kept taking the next revision number; try again');
+  } finally {
+    await browser.close();
+  }
+}

@@ -1,0 +1,43 @@
+// A printed PDF made reproducible and self-describing: Chromium's output differs run to run only
+// in its creation and modification dates, so both are set to the pack's date and the producer
+// fields are fixed; title, author (the firm) and subject (the job) are set, and data.json rides
+// along as an embedded file.
+
+export interface PdfMetadata {
+  title: string;
+  /** the firm */
+  author: string;
+  /** the job */
+  subject: string;
+  keywords: string[];
+  /** YYYY-MM-DD: the issue date (a draft: its last test date) */
+  date: string;
+  producer: string;
+  creator: string;
+  attachments: { name: string; bytes: Uint8Array; mimeType: string; description: string }[];
+}
+
+/** Midnight UTC of a YYYY-MM-DD date: a fixed instant, whatever the machine's time zone. */
+export function dayOf(date: string): Date {
+  const d = new Date(`${date}T00:00:00Z`);
+  if (Number.isNaN(d.getTime())) throw new Error(`not a date: "${date}" (expected YYYY-MM-DD)`);
+  return d;
+}
+
+export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {
+  const { PDFDocument } = await import('pdf-lib'); // loaded only by a run that prints
+  const doc = await PDFDocument.load(pdf, { updateMetadata: false });
+  const when = dayOf(meta.date);
+  doc.setTitle(meta.title);
+  doc.setAuthor(meta.author);
+  doc.setSubject(meta.subject);
+  doc.setKeywords(meta.keywords);
+  doc.setProducer(meta.producer);
+  doc.setCreator(meta.creator);
+  doc.setCreationDate(when);
+  doc.setModificationDate(when);
+  for (const a of meta.attachments) {
+    await doc.attach(a.bytes, a.name, { mimeType: a.mimeType, description: a.description, creationDate: when, modificationDate: when });
+  }
+  return doc.save();
+}
