@@ -6,9 +6,13 @@ import { formatError } from './load/raw.js';
 import { assessmentText } from './render/text.js';
 import { build, defaultJobs } from './build.js';
 import { NO_CHROMIUM_HELP } from './print/browser.js';
+import { PAPER } from './model/schema.js';
+import { existsSync, statSync } from 'node:fs';
 
 const USAGE = `usage:
-  packsmith build [job-folder...] [--out DIR]   render draft packs (HTML and PDF) into DIR (default out/)
+  packsmith build [job-folder...] [--out DIR] [--theme DIR] [--paper A4|Letter]
+                                                render draft packs (HTML and PDF) into DIR (default out/);
+                                                --theme: a firm's folder of templates, partials, stylesheet, logo
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
 `;
 
@@ -38,13 +42,26 @@ function check(args: string[]): Exit {
 }
 
 async function buildCommand(args: string[]): Promise<Exit> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' } } });
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: { out: { type: 'string', default: 'out' }, theme: { type: 'string' }, paper: { type: 'string' } },
+  });
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('no job folders given and none found under projects/\n');
     return 2;
   }
-  const r = await build({ jobs, out: values.out! });
+  const paper = values.paper === undefined ? undefined : PAPER.find((p) => p.toLowerCase() === values.paper!.toLowerCase());
+  if (values.paper !== undefined && paper === undefined) {
+    process.stderr.write(`packsmith: --paper "${values.paper}": expected ${PAPER.join(' or ')}\n`);
+    return 2;
+  }
+  if (values.theme !== undefined && !(existsSync(values.theme) && statSync(values.theme).isDirectory())) {
+    process.stderr.write(`packsmith: --theme "${values.theme}": no such folder; expected a folder of templates, partials, pack.css, theme.css or a logo\n`);
+    return 2;
+  }
+  const r = await build({ jobs, out: values.out!, theme: values.theme ?? null, ...(paper ? { paper } : {}) });
   for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
   if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);
   return r.invalid.length > 0 ? 2 : 0;
