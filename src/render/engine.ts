@@ -31,30 +31,36 @@ export interface Engine {
 }
 
 /** Property names Handlebars and JavaScript probe on any object; not fields of the view. */
-const PROBED = new Set(['toHTML', 'toJSON', 'then', 'constructor', '__proto__', 'length', 'toString', 'valueOf', 'inspect']);
+const PROBED = new Set(['toHTML', 'toJSON', 'then', 'inspect', 'length']);
+
+const paths = new WeakMap<object, string>();
+const proxies = new WeakMap<object, object>();
+
+const objectGuard: ProxyHandler<Record<PropertyKey, unknown>> = {
+  get(target, key) {
+    const v = target[key];
+    if (v === undefined && typeof key === 'string' && !(key in target) && !PROBED.has(key)) {
+      throw new Error(`the template reads "${key}", which ${paths.get(target)} does not have (it has: ${Object.keys(target).join(', ') || 'nothing'})`);
+    }
+    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}.${key}`)) : v;
+  },
+};
+const arrayGuard: ProxyHandler<unknown[]> = {
+  get(target, key) {
+    const v = (target as unknown as Record<PropertyKey, unknown>)[key];
+    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}[${key}]`)) : v;
+  },
+};
 
 /** The view behind a guard: reading a field it does not have throws, naming the field's path. */
 export function guarded<T>(value: T, path = 'view'): T {
   if (value === null || typeof value !== 'object') return value;
-  const cache = new Map<PropertyKey, unknown>();
-  return new Proxy(value as object, {
-    get(target, key, receiver) {
-      if (typeof key === 'symbol' || PROBED.has(key) || (Array.isArray(target) && /^\d+$/.test(key))) {
-        const v = Reflect.get(target, key, receiver) as unknown;
-        return Array.isArray(target) && typeof key === 'string' && /^\d+$/.test(key) ? guardedChild(cache, key, v, `${path}[${key}]`) : v;
-      }
-      if (!Object.prototype.hasOwnProperty.call(target, key)) {
-        throw new Error(`the template reads "${key}", which ${path} does not have (it has: ${Object.keys(target).join(', ') || 'nothing'})`);
-      }
-      return guardedChild(cache, key, Reflect.get(target, key, receiver), `${path}.${key}`);
-    },
-  }) as T;
-}
-
-function guardedChild(cache: Map<PropertyKey, unknown>, key: PropertyKey, v: unknown, path: string): unknown {
-  if (v === null || typeof v !== 'object') return v;
-  if (!cache.has(key)) cache.set(key, guarded(v, path));
-  return cache.get(key);
+  const known = proxies.get(value as object);
+  if (known) return known as T;
+  paths.set(value as object, path);
+  const p = Array.isArray(value) ? new Proxy(value, arrayGuard) : new Proxy(value as Record<PropertyKey, unknown>, objectGuard);
+  proxies.set(value as object, p);
+  return p as T;
 }
 
 const where = (file: string): string => {

@@ -12,13 +12,13 @@ import { circuitSnippet, snippetRequest } from './snippets.js';
 
 /**
  * Each status has a word, a symbol and a shape as well as a colour (pack.css): nothing is lost in
- * black and white or to a colour-blind reader. `shape` names the outline drawn round the symbol.
+ * black and white or to a colour-blind reader. `shape` names the outline drawn round the symbol (pack.css `.sh-*`).
  */
 export const STATUS_LOOK: Record<Status, { word: string; symbol: string; shape: string; css: string }> = {
   pass: { word: 'pass', symbol: '✓', shape: 'circle', css: 'st-pass' },
   fail: { word: 'fail', symbol: '✗', shape: 'square', css: 'st-fail' },
   attention: { word: 'attention', symbol: '!', shape: 'triangle', css: 'st-attention' },
-  'not-verified': { word: 'not verified', symbol: '?', shape: 'diamond', css: 'st-open' },
+  'not-verified': { word: 'not verified', symbol: '?', shape: 'dashed', css: 'st-open' },
   'n/a': { word: 'n/a', symbol: '–', shape: 'none', css: 'st-na' },
 };
 

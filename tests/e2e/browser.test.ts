@@ -83,6 +83,19 @@ describe('the built site in Chromium', () => {
     expect(requests.filter((u) => !u.startsWith('file:') && !u.startsWith('data:'))).toEqual([]);
   });
 
+  it('draws each status with its own shape and symbol, told apart without colour', async () => {
+    await page.goto(pathToFileURL(join(out, 'pack-job/draft/pack.html')).href, { waitUntil: 'load' });
+    const looks = await page.$$eval('table.counts thead .status', (els) => els.map((el) => {
+      const sym = el.querySelector('.sym')!;
+      const st = getComputedStyle(sym);
+      // everything but colour: outline style, roundness, clipping, filled or not, the symbol, the word
+      const filled = st.backgroundColor !== 'rgba(0, 0, 0, 0)';
+      return [st.borderTopStyle, st.borderTopLeftRadius, st.clipPath, filled ? 'filled' : 'open', sym.textContent, el.textContent!.trim()].join('|');
+    }));
+    expect(looks).toHaveLength(5);
+    expect(new Set(looks.map((l) => l.split('|').slice(0, 5).join('|'))).size).toBe(5);
+  });
+
   async function pageOne(packHtml: string): Promise<Buffer> {
     await page.setViewport({ width: A4_CONTENT.width, height: A4_CONTENT.height, deviceScaleFactor: 1 });
     await page.emulateMediaType('print');
