@@ -27,6 +27,16 @@ describe('packsmith build with themes', () => {
     }
   });
 
+  it('stops the build on a misspelled field in a theme, naming the file', () => {
+    const firm = tmp('packsmith-typo-theme-');
+    mkdirSync(join(firm, 'partials'));
+    writeFileSync(join(firm, 'partials/supply.hbs'), '<section id="supply">{{#if supply.earthng}}x{{/if}}</section>');
+    const r = packsmith(['build', 'projects/tannery-row-refit', '--out', tmp('packsmith-x-'), '--theme', firm], HTML_ONLY);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/^packsmith: .*partials\/supply\.hbs: the template reads "earthng", which view\.supply does not have/);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  });
+
   it('refuses a missing --theme folder and an unknown --paper plainly', () => {
     const missing = packsmith(['build', 'projects/tannery-row-refit', '--out', tmp('packsmith-x-'), '--theme', 'no/such/theme'], HTML_ONLY);
     expect(missing.code).toBe(2);
