@@ -114,7 +114,7 @@ async function main() {
   const n = packs.length;
   const rows: [string, string, string, string][] = [
     ['HTML stage (load, check, render, write)', `${Math.round(archive.circuits / htmlS)} circuits/s`, '', `${(htmlS / n * 1000).toFixed(1)} ms per pack`],
-    ['PDF stage, per pack', `${(oursS / n).toFixed(3)} s`, `${(bareS / n).toFixed(3)} s`, `ratio ${(oursS / bareS).toFixed(2)}`],
+    ['PDF stage, wall time per pack', `${(oursS / n).toFixed(3)} s`, `${(bareS / n).toFixed(3)} s`, `ratio ${(oursS / bareS).toFixed(2)}`],
     ['PDF stage, all packs', `${oursS.toFixed(1)} s`, `${bareS.toFixed(1)} s`, `${width} pages at once`],
     ['full build (HTML + PDF + index)', `${fullS.toFixed(1)} s`, '', `${full.built.length} packs`],
     ['rebuild after one changed reading', `${rebuildS.toFixed(1)} s`, '', `${printedAgain} of ${n} packs printed again; ratio to full ${(rebuildS / fullS).toFixed(2)}`],
