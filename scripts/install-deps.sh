@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Install what packsmith needs on a fresh Debian/Ubuntu machine: Chromium and the DejaVu fonts
-# from the OS packages (only when missing), then the npm packages (which also compiles dist/).
+# (core and extra) from the OS packages (only when missing), then the npm packages (which also compiles dist/).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -8,8 +8,13 @@ need=()
 if [ -z "${PACKSMITH_CHROME:-}" ] && ! command -v chromium >/dev/null 2>&1 && [ ! -x /usr/bin/chromium ]; then
   need+=(chromium)
 fi
-if ! fc-list 2>/dev/null | grep -qi 'DejaVuSans'; then
+# The packs are set in DejaVu only: Sans and Serif (fonts-dejavu-core), Sans Condensed for the wide
+# schedule tables and the oblique faces (fonts-dejavu-extra), so output does not depend on the machine.
+if ! fc-list 2>/dev/null | grep -qi 'DejaVuSans\.ttf'; then
   need+=(fonts-dejavu-core)
+fi
+if ! fc-list 2>/dev/null | grep -qi 'DejaVuSansCondensed\.ttf'; then
+  need+=(fonts-dejavu-extra)
 fi
 if [ "${#need[@]}" -gt 0 ]; then
   if ! command -v apt-get >/dev/null 2>&1; then

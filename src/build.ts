@@ -6,16 +6,18 @@ import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
-import { createEngine, BUILTIN_TEMPLATES } from './render/engine.js';
+import { engineCache } from './render/engine.js';
 import { findChromium } from './print/browser.js';
+import { progressLine, type ProgressStream } from './print/progress.js';
+import type { Paper } from './model/schema.js';
 import { packData, dataBytes } from './archive/data.js';
-import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
+import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
 import { inspectJob } from './archive/verify.js';
 import { changesSince } from './archive/previous.js';
 import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { writeSite } from './archive/site.js';
-import { lazyBrowser, packHtml, packPdf } from './produce.js';
+import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
 export interface BuildOptions {
@@ -25,6 +27,16 @@ export interface BuildOptions {
   force?: boolean;
   /** where messages go (stderr by default) */
   log?: (line: string) => void;
+  // ---- theme and paper (a job's own `theme` / `paper` in project.yaml applies where these are not given)
+  /** `--theme DIR`: a firm's theme folder for every job of the build */
+  theme?: string | null;
+  /** `--paper`: A4 or Letter */
+  paper?: Paper;
+  // ---- printing
+  /** pages printing at once (default: one per core) */
+  poolSize?: number;
+  /** where the progress line goes (default stderr; shown only on a terminal, for more than a few jobs) */
+  progress?: ProgressStream;
 }
 
 export interface BuildResult {
@@ -55,11 +67,13 @@ const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '197
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
   const out = resolve(opts.out);
-  const engine = createEngine();
-  const templatesHash = combinedHash(fileHashes(readTree(BUILTIN_TEMPLATES)));
+  const engineFor = engineCache();
+  const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
   const chromium = findChromium();
-  const browser = chromium ? lazyBrowser(chromium) : null;
+  const printer = chromium ? lazyPrinter(chromium, opts.poolSize) : null;
+  const printing: Promise<void>[] = [];
+  const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
   const names = new Map<string, string>();
   try {
     for (const dir of opts.jobs) {
@@ -75,20 +89,23 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       if (!job.ok) {
         result.invalid.push({ job: job.raw.name, errors: job.errors });
         for (const e of job.errors) log(`${job.raw.name}/${formatError(e)}`);
+        progress.tick(job.raw.name);
         continue;
       }
       const { project, assessment } = job;
       const target = join(out, project.name, 'draft');
       const latest = inspectJob(out, project.name).revisions.at(-1) ?? null;
+      const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
       const fingerprint: Fingerprint = {
         packsmith: VERSION,
         input_hash: combinedHash(fileHashes(job.raw.files)),
-        templates_hash: templatesHash,
+        templates_hash: style.templatesHash,
         base_revision: latest?.number ?? null,
-        pdf: browser !== null,
+        pdf: printer !== null,
       };
       if (!opts.force && upToDate(target, readStamp(target), fingerprint)) {
         result.skipped.push({ job: project.name, dir: target });
+        progress.tick(project.name);
         continue;
       }
       const date = lastTestDate(project.sessions, project.file.dates.completed);
@@ -96,28 +113,40 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const data = dataBytes(packData(project, assessment, VERSION, null));
       const since = changesSince(latest, JSON.parse(data), null);
       if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
-      const html = packHtml(project, assessment, label, since.ok ? since.changes : null, engine);
+      const pack = packFiles(project, assessment, label, since.ok ? since.changes : null, style);
 
       mkdirSync(target, { recursive: true });
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       const htmlPath = join(target, 'pack.html');
-      writeReplacing(htmlPath, html);
-      const outputs: Record<string, string> = { 'pack.html': sha256(html) };
-      let pdfPath: string | null = null;
-      if (browser) {
-        const pdf = await packPdf(await browser.get(), htmlPath, project, { ...label, date: pdfDate(date) }, data);
-        pdfPath = join(target, 'pack.pdf');
-        writeReplacing(pdfPath, pdf);
-        outputs['pack.pdf'] = sha256(pdf);
+      writeReplacing(htmlPath, pack.html);
+      const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
+      const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
+      result.built.push(built);
+      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, title: project.file.title, date, summary: assessment.summary, outputs }));
+      if (printer) {
+        const pdfPath = join(target, 'pack.pdf');
+        printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
+          writeReplacing(pdfPath, pdf);
+          outputs['pack.pdf'] = sha256(pdf);
+          built.pdf = pdfPath;
+          stamp();
+          progress.tick(project.name);
+        }));
+        await printer.room(); // the pages print while the next packs render, without queueing the whole build
       } else {
         result.pdfSkipped = true;
         rmSync(join(target, 'pack.pdf'), { force: true }); // never leave a PDF of other inputs beside this HTML
+        stamp();
+        progress.tick(project.name);
       }
-      writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, title: project.file.title, date, summary: assessment.summary, outputs }));
-      result.built.push({ job: project.name, html: htmlPath, pdf: pdfPath });
     }
+    const settled = await Promise.allSettled(printing);
+    const failed = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
+    if (failed) throw failed.reason;
   } finally {
-    await browser?.close();
+    progress.done();
+    await Promise.allSettled(printing);
+    await printer?.close();
   }
   writeSite(out);
   return result;

@@ -9,9 +9,13 @@ import { NO_CHROMIUM_HELP } from './print/browser.js';
 import { deviceCommand } from './commands/device.js';
 import { issueCommand } from './commands/issue.js';
 import { verifyCommand } from './commands/verify.js';
+import { PAPER } from './model/schema.js';
+import { existsSync, statSync } from 'node:fs';
 
 const USAGE = `usage:
-  packsmith build [job-folder...] [--out DIR] [--force]   render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are skipped unless --force
+  packsmith build [job-folder...] [--out DIR] [--force] [--theme DIR] [--paper A4|Letter]
+                                                render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are
+                                                skipped unless --force; --theme: a firm's folder of templates, partials, stylesheet, logo
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
   packsmith device <code> <rating> [--at AMPS] [--within SECONDS] [--u0 V] [--cmin C] [--json]   look up a device's characteristic
   packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR]
@@ -45,13 +49,29 @@ function check(args: string[]): Exit {
 }
 
 async function buildCommand(args: string[]): Promise<Exit> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { out: { type: 'string', default: 'out' }, force: { type: 'boolean', default: false } } });
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: {
+      out: { type: 'string', default: 'out' }, force: { type: 'boolean', default: false },
+      theme: { type: 'string' }, paper: { type: 'string' },
+    },
+  });
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('no job folders given and none found under projects/\n');
     return 2;
   }
-  const r = await build({ jobs, out: values.out!, force: values.force! });
+  const paper = values.paper === undefined ? undefined : PAPER.find((p) => p.toLowerCase() === values.paper!.toLowerCase());
+  if (values.paper !== undefined && paper === undefined) {
+    process.stderr.write(`packsmith: --paper "${values.paper}": expected ${PAPER.join(' or ')}\n`);
+    return 2;
+  }
+  if (values.theme !== undefined && !(existsSync(values.theme) && statSync(values.theme).isDirectory())) {
+    process.stderr.write(`packsmith: --theme "${values.theme}": no such folder; expected a folder of templates, partials, pack.css, theme.css or a logo\n`);
+    return 2;
+  }
+  const r = await build({ jobs, out: values.out!, force: values.force!, theme: values.theme ?? null, ...(paper ? { paper } : {}) });
   for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
   for (const s of r.skipped) process.stdout.write(`${s.job}: unchanged, kept ${s.dir}\n`);
   if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);

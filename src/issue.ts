@@ -7,7 +7,7 @@ import { loadJob } from './job.js';
 import { formatError } from './load/raw.js';
 import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
-import { createEngine, BUILTIN_TEMPLATES } from './render/engine.js';
+import { engineCache } from './render/engine.js';
 import { findChromium, NO_CHROMIUM_HELP } from './print/browser.js';
 import { dayOf } from './print/metadata.js';
 import { packData, dataBytes, type RevisionInfo } from './archive/data.js';
@@ -20,7 +20,7 @@ import { openStaging } from './archive/freeze.js';
 import { clearStale } from './archive/files.js';
 import { step } from './archive/steps.js';
 import { writeSite } from './archive/site.js';
-import { lazyBrowser, packHtml, packPdf } from './produce.js';
+import { lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
 export interface IssueOptions {
@@ -131,9 +131,9 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
   const jobOut = join(out, project.name);
   const inputs = fileHashes(job.raw.files);
   const inputHash = combinedHash(inputs);
-  const templatesHash = combinedHash(fileHashes(readTree(BUILTIN_TEMPLATES)));
-  const engine = createEngine();
-  const browser = lazyBrowser(chromium);
+  const style = styleOf(project, job.raw.dir, {}, engineCache());
+  const templatesHash = style.templatesHash;
+  const printer = lazyPrinter(chromium, 1);
   // what interrupted runs left: working folders beside the revisions, a revisions.yaml replacement
   clearStale(jobOut);
   clearStale(jobDir);
@@ -161,7 +161,8 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const data = dataBytes(packData(project, assessment, VERSION, info));
       const since = changesSince(latest, JSON.parse(data), { by: info.by, date: info.date, reason: info.reason });
       if (!since.ok) return refuse(1, `cannot compare with Revision ${latest?.number}: ${since.why}; run packsmith verify`);
-      const html = packHtml(project, assessment, label, since.changes, engine);
+      const pack = packFiles(project, assessment, label, since.changes, style);
+      const html = pack.html;
       step('rendered');
 
       const staging = openStaging(jobOut);
@@ -170,7 +171,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
         step('staging');
         const htmlPath = staging.add('pack.html', html);
         step('wrote-html');
-        const pdf = await packPdf(await browser.get(), htmlPath, project, label, data);
+        const pdf = await packPdf(printer, htmlPath, project, label, pack, style.paper, data);
         step('printed');
         staging.add('pack.pdf', pdf);
         step('wrote-pdf');
@@ -217,6 +218,6 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
     }
     return refuse(1, 'other runs kept taking the next revision number; try again');
   } finally {
-    await browser.close();
+    await printer.close();
   }
 }

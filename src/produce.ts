@@ -1,14 +1,17 @@
-// One pack's files, made the same way for a draft and for a revision: the HTML through the
-// templates, then the PDF printed from that HTML file, with fixed metadata and data.json inside.
-import type { Browser } from 'puppeteer-core';
+// One pack's files, made the same way for a draft and for a revision: the HTML (and the PDF's
+// running header and footer) through the job's theme, then the PDF printed from that HTML file by
+// a pool of pages on one Chromium, with fixed metadata and data.json inside.
+import { resolve } from 'node:path';
 import type { Project } from './model/validate.js';
+import type { Paper } from './model/schema.js';
 import type { Assessment } from './calc/types.js';
 import type { Changes } from './render/view.js';
-import type { Engine } from './render/engine.js';
-import { renderPack } from './render/pack.js';
+import { BUILTIN_TEMPLATES, type Engine } from './render/engine.js';
+import { renderPackFiles, type RenderedPack } from './render/pack.js';
 import { launchBrowser, type PrintBrowser } from './print/browser.js';
-import { printPdf } from './print/pdf.js';
+import { createPrintPool, type PrintPool } from './print/pool.js';
 import { setPdfMetadata } from './print/metadata.js';
+import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
 import { VERSION } from './version.js';
 
 /** What a pack says it is: "DRAFT" with its last test date, or "Revision N" with its issue date. */
@@ -18,15 +21,46 @@ export interface PackLabel {
   date: string;
 }
 
-export function packHtml(project: Project, assessment: Assessment, label: PackLabel, changes: Changes | null, engine: Engine): string {
-  return renderPack(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, changes }, engine);
+/** How a job's packs look: its theme's engine, its paper, and a hash of every template used. */
+export interface PackStyle {
+  engine: Engine;
+  paper: Paper;
+  /** the built-in templates, the theme's files and the paper: a change to any rebuilds the pack */
+  templatesHash: string;
 }
 
-export async function packPdf(browser: Browser, htmlPath: string, project: Project, label: PackLabel, dataJson: string): Promise<Uint8Array> {
-  const { pdf } = await printPdf(browser, htmlPath, {
-    footerLeft: project.file.title,
-    footerMiddle: label.draft ? 'DRAFT' : `${label.label} · ${label.date}`,
-  });
+/** The style of one job: `--theme`/`--paper` where given, else the job's own, else the built-ins and A4. */
+export function styleOf(
+  project: Project, jobDir: string, given: { theme?: string | null; paper?: Paper },
+  engineFor: (theme: string | null) => Engine, treeHash: (dir: string) => string = cachedTreeHash(),
+): PackStyle {
+  const theme = given.theme ?? (project.file.theme ? resolve(jobDir, project.file.theme) : null);
+  const paper = given.paper ?? project.file.paper ?? 'A4';
+  const parts = [treeHash(BUILTIN_TEMPLATES), theme ? treeHash(theme) : 'no theme', paper];
+  return { engine: engineFor(theme), paper, templatesHash: sha256(parts.join('\n')) };
+}
+
+/** The hash of a folder's files, each folder read once per run. */
+export function cachedTreeHash(): (dir: string) => string {
+  const seen = new Map<string, string>();
+  return (dir) => {
+    let h = seen.get(dir);
+    if (h === undefined) {
+      h = combinedHash(fileHashes(readTree(dir)));
+      seen.set(dir, h);
+    }
+    return h;
+  };
+}
+
+export function packFiles(project: Project, assessment: Assessment, label: PackLabel, changes: Changes | null, style: PackStyle): RenderedPack {
+  return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes }, style.engine);
+}
+
+export async function packPdf(
+  printer: Printer, htmlPath: string, project: Project, label: PackLabel, pack: RenderedPack, paper: Paper, dataJson: string,
+): Promise<Uint8Array> {
+  const { pdf } = await printer.print(htmlPath, { header: pack.header, footer: pack.footer, format: paper });
   return setPdfMetadata(pdf, {
     title: `${project.file.title} — ${label.label}`,
     author: project.file.installer.firm,
@@ -39,13 +73,25 @@ export async function packPdf(browser: Browser, htmlPath: string, project: Proje
   });
 }
 
-/** One Chromium, started the first time a pack needs printing (a build with nothing to print starts none). */
-export function lazyBrowser(chromium: string) {
-  let started: Promise<PrintBrowser> | null = null;
+/** A pool of print pages on one Chromium, started the first time a pack needs printing (a build with nothing to print starts none). */
+export interface Printer {
+  print: PrintPool['print'];
+  /** resolves when the pool has room for another pack (so rendering runs ahead of printing, but not the whole build) */
+  room(): Promise<void>;
+  close(): Promise<void>;
+}
+
+export function lazyPrinter(chromium: string, poolSize?: number): Printer {
+  let started: Promise<{ browser: PrintBrowser; pool: PrintPool }> | null = null;
+  const start = () => (started ??= launchBrowser(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize) })));
   return {
-    get: async (): Promise<Browser> => (await (started ??= launchBrowser(chromium))).browser,
-    close: async (): Promise<void> => {
-      if (started) await (await started).close();
+    print: async (htmlPath, opts) => (await start()).pool.print(htmlPath, opts),
+    room: async () => { if (started) await (await started).pool.room(); },
+    close: async () => {
+      if (!started) return;
+      const { browser, pool } = await started;
+      await pool.close();
+      await browser.close();
     },
   };
 }

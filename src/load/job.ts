@@ -8,6 +8,8 @@ import type { LocatedError, RawJob, RawSession } from './raw.js';
 
 const SESSION_NAME = /^(\d{4}-\d{2}-\d{2})(?:-([A-Za-z0-9][A-Za-z0-9_-]*))?\.csv$/;
 
+const isDirectory = (p: string): boolean => existsSync(p) && statSync(p).isDirectory();
+
 export function readJob(dir: string): RawJob {
   const root = resolve(dir);
   const errors: LocatedError[] = [];
@@ -33,6 +35,10 @@ export function readJob(dir: string): RawJob {
     const { doc, errors: e } = readYaml('project.yaml', projectText);
     job.project = doc;
     errors.push(...e);
+    const theme = (doc?.data as { theme?: unknown } | null)?.theme;
+    if (doc && typeof theme === 'string' && theme.trim() !== '' && !isDirectory(resolve(root, theme.trim()))) {
+      errors.push({ ...doc.positionOf(['theme']), message: `theme: no folder "${theme}" (looked in ${resolve(root, theme.trim())}); expected a theme folder, relative to the job folder` });
+    }
   }
 
   const circuitsText = read('circuits.csv');

@@ -103,6 +103,14 @@ export const BoardSchema = z.strictObject({
   pfc_ka: quantity('kiloampere').optional(),
 });
 
+export const PAPER = ['A4', 'Letter'] as const;
+export type Paper = (typeof PAPER)[number];
+
+const Signer = z.strictObject({
+  name: word('a name'),
+  date: isoDate.optional(),
+});
+
 export const ProjectFileSchema = z.strictObject({
   title: word('the job title'),
   client: Party,
@@ -117,6 +125,11 @@ export const ProjectFileSchema = z.strictObject({
   rules: RulesSchema.default({ set: 'iec-60364' }),
   boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' }),
   readings: ReadingsSettingsSchema.default({ columns: {} }),
+  /** a firm's theme folder, relative to the job folder (templates, partials, stylesheet, logo) */
+  theme: word('a theme folder, e.g. ../../themes/my-firm').optional(),
+  paper: choice(PAPER, 'the paper size').optional(),
+  /** the people who sign the pack; a missing one leaves a blank line to write on */
+  signoff: z.strictObject({ designer: Signer.optional(), installer: Signer.optional(), inspector: Signer.optional() }).default({}),
 });
 
 export type ProjectFile = z.output<typeof ProjectFileSchema>;

@@ -1,51 +1,71 @@
 // HTML file → PDF. JavaScript is off and every request other than the pack file itself (and
 // data: URLs inside it) is refused, so a pack cannot reach the network or run code.
+// The PDF is tagged (headings, tables, lists keep their structure for assistive technology) and
+// carries an outline built from the pack's headings: one bookmark per section, board and circuit.
 import { pathToFileURL } from 'node:url';
-import type { Browser } from 'puppeteer-core';
+import type { Browser, Page, PDFOptions } from 'puppeteer-core';
+
+export type PaperFormat = 'A4' | 'Letter';
 
 export interface PdfOptions {
-  /** running footer: job title, the revision word (DRAFT on drafts), page X of Y */
-  footerLeft: string;
-  footerMiddle: string;
-  format?: 'A4' | 'Letter';
+  /** Chromium header and footer templates (HTML; `pageNumber` and `totalPages` spans are filled in) */
+  header: string;
+  footer: string;
+  format?: PaperFormat;
 }
 
-const escapeHtml = (s: string): string =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-
-export function footerTemplate(opts: PdfOptions): string {
-  return `<div style="font-family:'DejaVu Sans',sans-serif;font-size:7.5pt;color:#444;width:100%;margin:0 14mm;display:flex;justify-content:space-between">
-<span>${escapeHtml(opts.footerLeft)}</span><span style="font-weight:bold">${escapeHtml(opts.footerMiddle)}</span>
-<span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`;
+/** The page.pdf options packsmith prints with (the bench gives bare Chromium the same). */
+export function pdfOptions(opts: PdfOptions): PDFOptions {
+  return {
+    format: opts.format ?? 'A4',
+    printBackground: true,
+    displayHeaderFooter: true,
+    headerTemplate: opts.header,
+    footerTemplate: opts.footer,
+    preferCSSPageSize: false,
+    margin: { top: '18mm', bottom: '16mm', left: '14mm', right: '14mm' },
+    tagged: true,
+    outline: true,
+    waitForFonts: true,
+  };
 }
 
-/** Print one HTML file; returns the PDF bytes and the requests that were refused. */
+/** A page that prints packs: no JavaScript, and only the file being printed may load. */
+export interface PrintPage {
+  page: Page;
+  print(htmlPath: string, opts: PdfOptions): Promise<{ pdf: Uint8Array; refused: string[] }>;
+}
+
+export async function preparePage(page: Page): Promise<PrintPage> {
+  await page.setJavaScriptEnabled(false);
+  await page.setRequestInterception(true);
+  let own: string | null = null;
+  let refused: string[] = [];
+  page.on('request', (req) => {
+    const url = req.url();
+    if (url === own || url.startsWith('data:')) void req.continue();
+    else {
+      refused.push(url);
+      void req.abort('blockedbyclient');
+    }
+  });
+  return {
+    page,
+    async print(htmlPath, opts) {
+      own = pathToFileURL(htmlPath).href;
+      refused = [];
+      await page.goto(own, { waitUntil: 'load' });
+      const pdf = await page.pdf(pdfOptions(opts));
+      return { pdf, refused };
+    },
+  };
+}
+
+/** Print one HTML file on a page of its own; returns the PDF bytes and the requests that were refused. */
 export async function printPdf(browser: Browser, htmlPath: string, opts: PdfOptions): Promise<{ pdf: Uint8Array; refused: string[] }> {
   const page = await browser.newPage();
-  const refused: string[] = [];
   try {
-    await page.setJavaScriptEnabled(false);
-    await page.setRequestInterception(true);
-    const own = pathToFileURL(htmlPath).href;
-    page.on('request', (req) => {
-      const url = req.url();
-      if (url === own || url.startsWith('data:')) void req.continue();
-      else {
-        refused.push(url);
-        void req.abort('blockedbyclient');
-      }
-    });
-    await page.goto(own, { waitUntil: 'load' });
-    const pdf = await page.pdf({
-      format: opts.format ?? 'A4',
-      printBackground: true,
-      displayHeaderFooter: true,
-      headerTemplate: '<span></span>',
-      footerTemplate: footerTemplate(opts),
-      preferCSSPageSize: false,
-      margin: { top: '16mm', bottom: '18mm', left: '14mm', right: '14mm' },
-    });
-    return { pdf, refused };
+    return await (await preparePage(page)).print(htmlPath, opts);
   } finally {
     await page.close();
   }

@@ -1,40 +1,125 @@
-// The Handlebars engine: templates/pack.hbs with the partials of templates/partials/, and the
-// helpers the templates use. Strict mode: a misspelled field is an error, not a blank cell.
+// The Handlebars engine: pack.hbs with the partials of partials/, the theme's files over the
+// built-in ones (theme.ts), and the helpers the templates use.
+//
+// Templates fail loudly. Handlebars' strict mode makes `{{clent.name}}` an error, but it still
+// lets a misspelled field through where it is a helper's argument (`{{#if clent}}`, `{{#each
+// bords}}`, `{{num ze}}`, `{{> status look=lok}}`). So the view is also handed to the templates
+// behind a guard that throws on any field it does not have: the view model gives every field
+// (null where the job has none), so a missing one is always a template's mistake. Either way the
+// error names the template file. User text is always escaped (`{{...}}`); the only unescaped
+// values are the stylesheet, the sanitised notes and packsmith's own SVG.
 import Handlebars from 'handlebars';
-import { readdirSync, readFileSync, existsSync } from 'node:fs';
-import { basename, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
+import { relative } from 'node:path';
 import { fmt } from '../model/units.js';
+import { BUILTIN_TEMPLATES, templateFiles, type TemplateFiles } from './theme.js';
 
-export const BUILTIN_TEMPLATES = fileURLToPath(new URL('../../templates/', import.meta.url));
+export { BUILTIN_TEMPLATES };
+
+export class TemplateError extends Error {
+  constructor(readonly file: string, message: string) {
+    super(`${file}: ${message}`);
+    this.name = 'TemplateError';
+  }
+}
 
 export interface Engine {
+  files: TemplateFiles;
   render(template: string, view: unknown): string;
-  /** a file of the template folder as text (e.g. pack.css) */
+  /** a file of the template folders as text (e.g. pack.css) */
   asset(name: string): string;
 }
 
-export function createEngine(dir: string = BUILTIN_TEMPLATES): Engine {
-  const hb = Handlebars.create();
-  const partialsDir = join(dir, 'partials');
-  if (existsSync(partialsDir)) {
-    for (const f of readdirSync(partialsDir).filter((n) => n.endsWith('.hbs')).sort()) {
-      hb.registerPartial(basename(f, '.hbs'), readFileSync(join(partialsDir, f), 'utf8'));
+/** Property names Handlebars and JavaScript probe on any object; not fields of the view. */
+const PROBED = new Set(['toHTML', 'toJSON', 'then', 'inspect', 'length']);
+
+const paths = new WeakMap<object, string>();
+const proxies = new WeakMap<object, object>();
+
+const objectGuard: ProxyHandler<Record<PropertyKey, unknown>> = {
+  get(target, key) {
+    const v = target[key];
+    if (v === undefined && typeof key === 'string' && !(key in target) && !PROBED.has(key)) {
+      throw new Error(`the template reads "${key}", which ${paths.get(target)} does not have (it has: ${Object.keys(target).join(', ') || 'nothing'})`);
     }
-  }
+    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}.${key}`)) : v;
+  },
+};
+const arrayGuard: ProxyHandler<unknown[]> = {
+  get(target, key) {
+    const v = (target as unknown as Record<PropertyKey, unknown>)[key];
+    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}[${key}]`)) : v;
+  },
+};
+
+/** The view behind a guard: reading a field it does not have throws, naming the field's path. */
+export function guarded<T>(value: T, path = 'view'): T {
+  if (value === null || typeof value !== 'object') return value;
+  const known = proxies.get(value as object);
+  if (known) return known as T;
+  paths.set(value as object, path);
+  const p = Array.isArray(value) ? new Proxy(value, arrayGuard) : new Proxy(value as Record<PropertyKey, unknown>, objectGuard);
+  proxies.set(value as object, p);
+  return p as T;
+}
+
+const where = (file: string): string => {
+  const rel = relative(BUILTIN_TEMPLATES, file);
+  return rel.startsWith('..') ? file : `templates/${rel}`;
+};
+
+/** A compiled template that names its file when it fails. */
+function named(fn: Handlebars.TemplateDelegate, file: string): Handlebars.TemplateDelegate {
+  return (context, options) => {
+    try {
+      return fn(context, options);
+    } catch (e) {
+      if (e instanceof TemplateError) throw e;
+      throw new TemplateError(where(file), e instanceof Error ? e.message : String(e));
+    }
+  };
+}
+
+export function createEngine(opts: { theme?: string | null } = {}): Engine {
+  const files = templateFiles(opts.theme ?? null);
+  const hb = Handlebars.create();
+  const compile = (file: string) => {
+    try {
+      return named(hb.compile(readFileSync(file, 'utf8'), { strict: true }), file);
+    } catch (e) {
+      throw new TemplateError(where(file), e instanceof Error ? e.message : String(e));
+    }
+  };
+  for (const [name, file] of files.partials()) hb.registerPartial(name, compile(file));
   hb.registerHelper('num', (n: unknown, digits: unknown) =>
     typeof n === 'number' ? fmt(n, typeof digits === 'number' ? digits : 3) : '—');
   hb.registerHelper('eq', (a: unknown, b: unknown) => a === b);
   const compiled = new Map<string, Handlebars.TemplateDelegate>();
   return {
+    files,
     render(template, view) {
       let t = compiled.get(template);
       if (!t) {
-        t = hb.compile(readFileSync(join(dir, template), 'utf8'), { strict: true });
+        const file = files.find(template);
+        if (file === null) throw new Error(`template "${template}" is neither in the theme nor built in`);
+        t = compile(file);
         compiled.set(template, t);
       }
-      return t(view);
+      return t(guarded(view));
     },
-    asset: (name) => readFileSync(join(dir, name), 'utf8'),
+    asset: (name) => files.read(name),
+  };
+}
+
+/** One engine per theme folder (null: the built-ins), made on first use. */
+export function engineCache(): (theme: string | null) => Engine {
+  const engines = new Map<string | null, Engine>();
+  return (theme) => {
+    let e = engines.get(theme);
+    if (!e) {
+      e = createEngine({ theme });
+      engines.set(theme, e);
+    }
+    return e;
   };
 }

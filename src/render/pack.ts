@@ -1,11 +1,32 @@
-// Render one pack: the view through templates/pack.hbs, the stylesheet inlined, so the HTML is a
-// single self-contained file that opens from file:// and prints without any request.
+// Render one pack: the view through pack.hbs, the stylesheets (pack.css, then theme.css) and the
+// logo inlined, so the HTML is a single self-contained file that opens from file:// and prints
+// without any request. The running header and footer of the PDF are templates too.
 import type { Project } from '../model/validate.js';
 import type { Assessment } from '../calc/types.js';
-import { buildView, type RenderOptions } from './view.js';
+import { buildView, type RenderOptions, type ThemeAssets } from './view.js';
 import { createEngine, type Engine } from './engine.js';
 
+export interface RenderedPack {
+  html: string;
+  /** Chromium's running header and footer (page X of Y filled in by the printer) */
+  header: string;
+  footer: string;
+}
+
+export function themeAssets(engine: Engine): ThemeAssets {
+  const logo = engine.files.logo();
+  return { css: `${engine.asset('pack.css')}\n${engine.asset('theme.css')}`, logo: logo ? { src: logo.src } : null };
+}
+
+export function renderPackFiles(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): RenderedPack {
+  const view = buildView(project, assessment, opts, themeAssets(engine));
+  return {
+    html: engine.render('pack.hbs', view),
+    header: engine.render('print-header.hbs', view),
+    footer: engine.render('print-footer.hbs', view),
+  };
+}
+
 export function renderPack(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): string {
-  const view = buildView(project, assessment, opts);
-  return engine.render('pack.hbs', { ...view, css: engine.asset('pack.css') });
+  return engine.render('pack.hbs', buildView(project, assessment, opts, themeAssets(engine)));
 }

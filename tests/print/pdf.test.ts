@@ -23,7 +23,7 @@ describe('printing a pack', () => {
     writeFileSync(html, `<!doctype html><html><head><link rel="stylesheet" href="http://127.0.0.1:9/x.css"></head>
 <body><p id="p">static text</p><img src="https://example.invalid/logo.png">
 <script>document.getElementById('p').textContent = 'script ran';</script></body></html>`);
-    const { pdf, refused } = await printPdf(browser.browser, html, { footerLeft: 'Test job', footerMiddle: 'DRAFT' });
+    const { pdf, refused } = await printPdf(browser.browser, html, { header: '<span></span>', footer: '<span>DRAFT</span>' });
     const { text } = await pdfText(pdf);
     expect(text.join(' ')).toContain('static text');
     expect(text.join(' ')).not.toContain('script ran');

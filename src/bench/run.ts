@@ -1,0 +1,148 @@
+// `npm run bench`: build a generated archive (200 jobs of 10–40 circuits by default) and print,
+// side by side from one run: the HTML stage in circuits/s; the PDF stage per pack against bare
+// Chromium printing the same HTML files with the same page.pdf options (the ratio); a full build;
+// a rebuild after one reading of one job changed; and peak memory.
+//
+//   npm run bench [-- --jobs N] [--keep]
+import { mkdtempSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism, tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import puppeteer from 'puppeteer-core';
+import { pathToFileURL } from 'node:url';
+import { build } from '../build.js';
+import { loadJob } from '../job.js';
+import { engineCache } from '../render/engine.js';
+import { renderPackFiles } from '../render/pack.js';
+import { findChromium, launchBrowser } from '../print/browser.js';
+import { pdfOptions, type PdfOptions } from '../print/pdf.js';
+import { createPrintPool, defaultPoolSize } from '../print/pool.js';
+import { generateArchive } from './generate.js';
+import { sampleTree } from './memory.js';
+
+const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' } } });
+const count = Number(values.jobs);
+if (!Number.isInteger(count) || count < 1) throw new Error(`--jobs ${values.jobs}: expected a whole number of jobs`);
+
+const seconds = (t0: bigint) => Number(process.hrtime.bigint() - t0) / 1e9;
+const now = () => process.hrtime.bigint();
+const say = (s: string) => process.stderr.write(`bench: ${s}\n`);
+
+async function main() {
+  const chromium = findChromium();
+  if (!chromium) throw new Error('the bench needs Chromium: run scripts/install-deps.sh or set PACKSMITH_CHROME');
+  const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-'));
+  const width = defaultPoolSize();
+
+  let t = now();
+  const archive = generateArchive(join(root, 'projects'), count);
+  const generateS = seconds(t);
+  say(`generated ${archive.jobs.length} jobs, ${archive.circuits} circuits in ${generateS.toFixed(2)} s (${root})`);
+
+  // ---- HTML stage: load, validate, assess, render, write
+  const htmlDir = join(root, 'html');
+  const engineFor = engineCache();
+  const packs: { html: string; opts: PdfOptions }[] = [];
+  t = now();
+  for (const dir of archive.jobs) {
+    const job = loadJob(dir);
+    if (!job.ok) throw new Error(`generated job ${dir} is invalid: ${job.errors[0]?.message}`);
+    const r = renderPackFiles(job.project, job.assessment, { revisionLabel: 'DRAFT', draft: true, date: '2026-01-23' }, engineFor(null));
+    const file = join(htmlDir, `${job.project.name}.html`);
+    mkdirSync(htmlDir, { recursive: true });
+    writeFileSync(file, r.html);
+    packs.push({ html: file, opts: { header: r.header, footer: r.footer, format: 'A4' } });
+  }
+  const htmlS = seconds(t);
+  say(`HTML stage ${htmlS.toFixed(2)} s`);
+
+  // ---- PDF stage, bare Chromium: same files, same page.pdf options, same number at once, a page each
+  const bare = await puppeteer.launch({ executablePath: chromium, headless: true, args: ['--no-sandbox', `--user-data-dir=${join(root, 'bare-profile')}`] });
+  let mem = sampleTree(() => bare.process()?.pid);
+  t = now();
+  let next = 0;
+  await Promise.all(Array.from({ length: width }, async () => {
+    while (next < packs.length) {
+      const p = packs[next++]!;
+      const page = await bare.newPage();
+      await page.goto(pathToFileURL(p.html).href, { waitUntil: 'load' });
+      await page.pdf(pdfOptions(p.opts));
+      await page.close();
+    }
+  }));
+  const bareS = seconds(t);
+  const bareMb = mem.stop();
+  await bare.close();
+  say(`bare Chromium ${bareS.toFixed(2)} s`);
+
+  // ---- PDF stage, packsmith: one Chromium, the page pool, JavaScript off, requests refused
+  const ours = await launchBrowser(chromium);
+  const pool = createPrintPool(ours.browser, width);
+  mem = sampleTree(() => ours.browser.process()?.pid);
+  t = now();
+  const printing: Promise<unknown>[] = [];
+  for (const p of packs) {
+    printing.push(pool.print(p.html, p.opts));
+    await pool.room();
+  }
+  await Promise.all(printing);
+  const oursS = seconds(t);
+  const oursMb = mem.stop();
+  await pool.close();
+  await ours.close();
+  say(`packsmith PDF stage ${oursS.toFixed(2)} s`);
+
+  // ---- the whole build, then a rebuild after one reading of one job changed
+  const out = join(root, 'out');
+  const quiet = { isTTY: false, write: () => true };
+  t = now();
+  const full = await build({ jobs: archive.jobs, out, progress: quiet, log: say });
+  const fullS = seconds(t);
+  say(`full build ${fullS.toFixed(2)} s`);
+  const changed = join(archive.jobs[Math.floor(archive.jobs.length / 2)]!, 'readings/2026-01-16.csv');
+  const lines = readFileSync(changed, 'utf8').split('\n');
+  const cells = lines[1]!.split(',');
+  cells[7] = cells[7] === 'not-tested' ? '0.50' : (Number(cells[7]) + 0.01).toFixed(2); // zs_ohm of the first circuit
+  lines[1] = cells.join(',');
+  writeFileSync(changed, lines.join('\n'));
+  t = now();
+  const again = await build({ jobs: archive.jobs, out, progress: quiet, log: say });
+  const rebuildS = seconds(t);
+  const printedAgain = again.built.filter((b) => b.pdf !== null).length;
+  const nodeMb = process.resourceUsage().maxRSS / 1024;
+
+  const n = packs.length;
+  const rows: [string, string, string, string][] = [
+    ['HTML stage (load, check, render, write)', `${Math.round(archive.circuits / htmlS)} circuits/s`, '', `${(htmlS / n * 1000).toFixed(1)} ms per pack`],
+    ['PDF stage, wall time per pack', `${(oursS / n).toFixed(3)} s`, `${(bareS / n).toFixed(3)} s`, `ratio ${(oursS / bareS).toFixed(2)}`],
+    ['PDF stage, all packs', `${oursS.toFixed(1)} s`, `${bareS.toFixed(1)} s`, `${width} pages at once`],
+    ['full build (HTML + PDF + index)', `${fullS.toFixed(1)} s`, '', `${full.built.length} packs`],
+    ['rebuild after one changed reading', `${rebuildS.toFixed(1)} s`, '', `${printedAgain} of ${n} packs printed again; ratio to full ${(rebuildS / fullS).toFixed(2)}`],
+    ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
+    ['peak memory, node (whole bench)', `${nodeMb.toFixed(0)} MB`, '', ''],
+  ];
+  const w = [38, 16, 16, 0];
+  const line = (r: string[]) => r.map((c, i) => (w[i] ? c.padEnd(w[i]!) : c)).join('  ').trimEnd();
+  process.stdout.write([
+    `packsmith bench: ${n} generated jobs, ${archive.circuits} circuits (${(archive.circuits / n).toFixed(1)} per job), ${availableParallelism()} cores, Chromium ${(await chromiumVersion(chromium))}`,
+    line(['', 'packsmith', 'bare Chromium', '']),
+    ...rows.map(line),
+    '',
+  ].join('\n'));
+  if (!values.keep) rmSync(root, { recursive: true, force: true });
+  else say(`kept ${root}`);
+}
+
+async function chromiumVersion(path: string): Promise<string> {
+  const b = await puppeteer.launch({ executablePath: path, headless: true, args: ['--no-sandbox'] });
+  try {
+    return (await b.version()).replace(/^HeadlessChrome\//, '');
+  } finally {
+    await b.close();
+  }
+}
+
+main().catch((e: unknown) => {
+  process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);
+  process.exitCode = 1;
+});

@@ -1,0 +1,124 @@
+// The built site in a real browser: open index.html, follow every link between the index, the
+// jobs and their revisions and into the packs, see that no request leaves the machine, and compare
+// page 1 of a pack with a stored screenshot.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import type { Page } from 'puppeteer-core';
+import { packsmith } from '../helpers/cli.js';
+import { againstStored, difference } from '../helpers/screenshot.js';
+import { defaultJobs } from '../../src/build.js';
+import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
+
+const out = mkdtempSync(join(tmpdir(), 'packsmith-site-'));
+const STORED = fileURLToPath(new URL('./screenshots/pack-job-page-1.png', import.meta.url));
+/** Page 1 as printed on A4: the sheet less its 14 mm side margins, at 96 px per inch. */
+const A4_CONTENT = { width: Math.round(((210 - 28) / 25.4) * 96), height: Math.round(((297 - 34) / 25.4) * 96) };
+
+describe('the built site in Chromium', () => {
+  let browser: PrintBrowser;
+  const requests: string[] = [];
+  let page: Page;
+  const jobs = [...defaultJobs(), 'tests/fixtures/pack-job'];
+
+  beforeAll(async () => {
+    const r = packsmith(['build', ...jobs, '--out', out]);
+    if (r.code !== 0) throw new Error(r.stderr);
+    const chromium = findChromium();
+    if (!chromium) throw new Error('no Chromium: run scripts/install-deps.sh (or set PACKSMITH_CHROME)');
+    browser = await launchBrowser(chromium);
+    page = await browser.browser.newPage();
+    await page.setRequestInterception(true);
+    page.on('request', (req) => {
+      requests.push(req.url());
+      if (req.url().startsWith('file:') || req.url().startsWith('data:')) void req.continue();
+      else void req.abort('blockedbyclient');
+    });
+  });
+  afterAll(async () => { await browser?.close(); });
+
+  const linksOf = async (p: Page) => p.$$eval('a[href]', (as) => as.map((a) => ({ href: (a as HTMLAnchorElement).href, raw: a.getAttribute('href')! })));
+
+  it('opens index.html and follows every link to the jobs, their revisions and packs, all of them there', async () => {
+    const start = pathToFileURL(join(out, 'index.html')).href;
+    const seen = new Set<string>();
+    const queue = [start];
+    const pdfs: string[] = [];
+    const broken: string[] = [];
+    while (queue.length) {
+      const url = queue.shift()!;
+      if (seen.has(url)) continue;
+      seen.add(url);
+      const res = await page.goto(url, { waitUntil: 'load' });
+      expect(res?.ok() ?? true, url).toBe(true);
+      for (const { href, raw } of await linksOf(page)) {
+        const target = new URL(href);
+        if (target.protocol !== 'file:') { broken.push(`${url} → ${raw} (leaves the machine)`); continue; }
+        if (raw.startsWith('#')) {
+          // a link inside a pack: its target must be on the page
+          if (!(await page.$(`[id="${decodeURIComponent(raw.slice(1))}"]`))) broken.push(`${url} → ${raw}`);
+          continue;
+        }
+        target.hash = '';
+        const file = fileURLToPath(target);
+        if (!file.startsWith(out) || !existsSync(file)) { broken.push(`${url} → ${raw}`); continue; }
+        if (file.endsWith('.pdf')) pdfs.push(file);
+        else if (file.endsWith('.html')) queue.push(target.href);
+      }
+    }
+    expect(broken).toEqual([]);
+    // every job built is reachable from the index, as HTML and as PDF
+    for (const job of ['tannery-row-refit', 'marsh-street-surgery', 'pack-job']) {
+      expect([...seen].some((u) => u.includes(`/${job}/`) && u.endsWith('pack.html')), job).toBe(true);
+      expect(pdfs.some((f) => f.includes(`/${job}/`)), job).toBe(true);
+    }
+    for (const f of pdfs) expect(readFileSync(f).subarray(0, 5).toString()).toBe('%PDF-');
+    expect(seen.size).toBeGreaterThanOrEqual(jobs.length + 1);
+  });
+
+  it('makes no request that leaves the machine', () => {
+    expect(requests.length).toBeGreaterThan(0);
+    expect(requests.filter((u) => !u.startsWith('file:') && !u.startsWith('data:'))).toEqual([]);
+  });
+
+  it('draws each status with its own shape and symbol, told apart without colour', async () => {
+    await page.goto(pathToFileURL(join(out, 'pack-job/draft/pack.html')).href, { waitUntil: 'load' });
+    const looks = await page.$$eval('table.counts thead .status', (els) => els.map((el) => {
+      const sym = el.querySelector('.sym')!;
+      const st = getComputedStyle(sym);
+      // everything but colour: outline style, roundness, clipping, filled or not, the symbol, the word
+      const filled = st.backgroundColor !== 'rgba(0, 0, 0, 0)';
+      return [st.borderTopStyle, st.borderTopLeftRadius, st.clipPath, filled ? 'filled' : 'open', sym.textContent, el.textContent!.trim()].join('|');
+    }));
+    expect(looks).toHaveLength(5);
+    expect(new Set(looks.map((l) => l.split('|').slice(0, 5).join('|'))).size).toBe(5);
+  });
+
+  async function pageOne(packHtml: string): Promise<Buffer> {
+    await page.setViewport({ width: A4_CONTENT.width, height: A4_CONTENT.height, deviceScaleFactor: 1 });
+    await page.emulateMediaType('print');
+    await page.goto(pathToFileURL(packHtml).href, { waitUntil: 'load' });
+    // page 1 is the cover (it ends with a page break in print); a screen has no pages, so clip to it
+    const cover = await (await page.$('section.cover'))!.boundingBox();
+    const shot = await page.screenshot({ clip: { x: 0, y: 0, width: A4_CONTENT.width, height: Math.min(A4_CONTENT.height, Math.ceil(cover!.y + cover!.height)) }, type: 'png' });
+    await page.emulateMediaType();
+    return Buffer.from(shot);
+  }
+
+  it('draws page 1 of a pack as the stored screenshot, anti-aliasing aside', async () => {
+    const shot = await pageOne(join(out, 'pack-job/draft/pack.html'));
+    const d = againstStored(shot, STORED);
+    expect(d.sameSize).toBe(true);
+    expect(d.differing / d.total).toBeLessThan(0.002);
+  });
+
+  it('and notices when page 1 really changes', async () => {
+    const html = join(out, 'pack-job/draft/pack.html');
+    const changed = join(out, 'pack-job/draft/changed.html');
+    writeFileSync(changed, readFileSync(html, 'utf8').replace('Ampersand &amp; &lt;Sons&gt; Electrical</strong>', 'Another Firm Entirely Ltd</strong>'));
+    const d = difference(await pageOne(changed), readFileSync(STORED));
+    expect(d.differing).toBeGreaterThan(200);
+  });
+});

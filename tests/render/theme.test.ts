@@ -1,0 +1,105 @@
+// Firm themes over the built-in templates, and templates that fail loudly.
+import { describe, expect, it } from 'vitest';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { loadJob } from '../../src/job.js';
+import { readJob } from '../../src/load/job.js';
+import { createEngine, TemplateError } from '../../src/render/engine.js';
+import { renderPack, renderPackFiles } from '../../src/render/pack.js';
+import { templateFiles } from '../../src/render/theme.js';
+
+const OPTS = { revisionLabel: 'DRAFT', draft: true, date: '2026-03-06' };
+const fixture = (() => {
+  const j = loadJob('tests/fixtures/pack-job');
+  if (!j.ok) throw new Error('fixture invalid');
+  return j;
+})();
+
+function theme(files: Record<string, string | Buffer>): string {
+  const dir = mkdtempSync(join(tmpdir(), 'packsmith-theme-'));
+  for (const [name, text] of Object.entries(files)) {
+    mkdirSync(join(dir, name, '..'), { recursive: true });
+    writeFileSync(join(dir, name), text);
+  }
+  return dir;
+}
+const render = (dir: string | null) => renderPackFiles(fixture.project, fixture.assessment, OPTS, createEngine({ theme: dir }));
+
+describe('a firm theme', () => {
+  it('replaces a partial, the stylesheets, the footer and the logo by name; the rest stays built in', () => {
+    const png = Buffer.from('89504e470d0a1a0a', 'hex');
+    const dir = theme({
+      'partials/signoff.hbs': '<section id="signoff"><h2>Signed for {{firm.name}}</h2></section>',
+      'theme.css': '.firm-mark { color: #123456; }',
+      'print-footer.hbs': '<div>{{firm.name}} — sheet <span class="pageNumber"></span></div>',
+      'logo.png': png,
+    });
+    const built = render(null);
+    const themed = render(dir);
+    expect(themed.html).toContain('<h2>Signed for Ampersand &amp; &lt;Sons&gt; Electrical</h2>');
+    expect(themed.html).not.toContain('Each person signs for their own part');
+    expect(themed.html).toContain('.firm-mark { color: #123456; }');
+    expect(themed.footer).toBe('<div>Ampersand &amp; &lt;Sons&gt; Electrical — sheet <span class="pageNumber"></span></div>');
+    // (Handlebars writes "=" as &#x3D; in the attribute, which the browser reads back as "=")
+    expect(themed.html.replaceAll('&#x3D;', '=')).toContain(`src="data:image/png;base64,${png.toString('base64')}"`);
+    // everything the theme does not hold is the built-in file
+    expect(themed.header).toBe(built.header);
+    const cut = (h: string) => h.slice(h.indexOf('id="summary"'), h.indexOf('id="signoff"'));
+    expect(cut(themed.html)).toBe(cut(built.html));
+    expect(built.html).toContain('src="data:image/svg+xml;base64,');
+  });
+
+  it('may replace pack.css and pack.hbs themselves', () => {
+    const dir = theme({ 'pack.css': 'body { color: #010203; }', 'pack.hbs': '<html><style>{{{css}}}</style><body>{{> cover}}</body></html>' });
+    const { html } = render(dir);
+    expect(html).toContain('body { color: #010203; }');
+    expect(html).not.toContain('--st-pass');
+    expect(html).toContain('id="cover"');
+    expect(html).not.toContain('id="summary"');
+  });
+
+  it('is refused when its folder is missing, with the project.yaml position when the job names it', () => {
+    expect(() => templateFiles('/nonexistent/theme')).toThrow(/theme folder "\/nonexistent\/theme" not found/);
+    const dir = mkdtempSync(join(tmpdir(), 'packsmith-job-'));
+    writeFileSync(join(dir, 'project.yaml'), 'title: t\ntheme: ../no-such-theme\n');
+    writeFileSync(join(dir, 'circuits.csv'), 'board,ref\n');
+    const raw = readJob(dir);
+    expect(raw.errors).toContainEqual(expect.objectContaining({ file: 'project.yaml', row: 2, column: 8, message: expect.stringMatching(/^theme: no folder "..\/no-such-theme"/) }));
+  });
+});
+
+describe('templates fail loudly', () => {
+  it('a misspelled field is an error naming the template file', () => {
+    const dir = theme({ 'partials/cover.hbs': '<section id="cover">{{clent.name}}</section>' });
+    expect(() => render(dir)).toThrow(TemplateError);
+    expect(() => render(dir)).toThrow(/partials\/cover\.hbs: the template reads "clent", which view does not have \(it has: title, job, client,/);
+  });
+
+  it('so is a misspelled field given to a helper or a partial, which strict mode alone lets through', () => {
+    for (const [body, field] of [
+      ['{{#if clent}}x{{/if}}', 'clent'],
+      ['{{#each bords}}x{{/each}}', 'bords'],
+      ['{{num supply.ze}}', 'ze'],
+      ['{{> status look=overal}}', 'overal'],
+      ['{{#each boards}}{{#each circuits}}{{num derived.iz}}{{/each}}{{/each}}', 'iz'],
+    ] as const) {
+      const dir = theme({ 'partials/notes.hbs': body });
+      expect(() => render(dir), body).toThrow(new RegExp(`partials/notes\\.hbs: the template reads "${field}"`));
+    }
+  });
+
+  it('a template that does not parse, or a missing partial, is an error too', () => {
+    expect(() => render(theme({ 'partials/rules.hbs': '{{#if rules}}unclosed' }))).toThrow(/partials\/rules\.hbs: Parse error/);
+    expect(() => render(theme({ 'partials/rules.hbs': '{{> no-such-partial}}' }))).toThrow(/The partial no-such-partial could not be found/);
+  });
+
+  it('the built-in templates render every demo job', () => {
+    for (const dir of ['projects/tannery-row-refit', 'projects/marsh-street-surgery']) {
+      const j = loadJob(dir);
+      if (!j.ok) throw new Error(`${dir} invalid`);
+      const themeDir = j.project.file.theme ? join(dir, j.project.file.theme) : null;
+      expect(renderPack(j.project, j.assessment, OPTS, createEngine({ theme: themeDir }))).toMatch(/<\/html>\s*$/);
+    }
+  });
+});

@@ -1,0 +1,181 @@
+// The view model and the built-in templates: contents in order, derived values as calc gives
+// them, every reading with its verdict, open items first, user text escaped.
+import { describe, expect, it } from 'vitest';
+import { loadJob } from '../../src/job.js';
+import { buildView, DERIVED_FIELDS, worstStatus } from '../../src/render/view.js';
+import { renderPack, renderPackFiles } from '../../src/render/pack.js';
+import { createEngine } from '../../src/render/engine.js';
+import { snippetRequest } from '../../src/render/snippets.js';
+import type { Assessment } from '../../src/calc/types.js';
+
+function job(dir: string) {
+  const j = loadJob(dir);
+  if (!j.ok) throw new Error(`${dir} invalid: ${j.errors.map((e) => e.message).join('; ')}`);
+  return j;
+}
+const OPTS = { revisionLabel: 'DRAFT', draft: true, date: '2026-03-06' };
+const FIXTURE = 'tests/fixtures/pack-job';
+const DEMO = 'projects/tannery-row-refit';
+
+describe('the pack view', () => {
+  it('lists the sections in the agreed order', () => {
+    const { project, assessment } = job(DEMO);
+    const html = renderPack(project, assessment, OPTS);
+    const ids = ['cover', 'summary', 'supply', 'board-DB1', 'board-DB2', 'notes', 'rules', 'changes', 'safety', 'signoff'];
+    const at = ids.map((id) => html.indexOf(`id="${id}"`));
+    expect(at.every((i) => i > 0)).toBe(true);
+    expect([...at].sort((a, b) => a - b)).toEqual(at);
+    // per board: schedule, then measured results, then each circuit's checks and curve
+    const db1 = html.slice(at[3], at[4]);
+    expect(db1.indexOf('Circuit schedule')).toBeLessThan(db1.indexOf('Measured results'));
+    expect(db1.indexOf('Measured results')).toBeLessThan(db1.indexOf('Checks and curves'));
+    expect(db1.match(/<figure class="snippet">/g)).toHaveLength(11);
+  });
+
+  it('shows the derived values calc gives, and — where it gives none', () => {
+    const { project, assessment } = job(FIXTURE);
+    const filled: Assessment = structuredClone(assessment);
+    Object.assign(filled.circuits[0]!.derived, { iz_a: 19.5, vd_percent: 1.84, zs_design_ohm: 0.88 });
+    const view = buildView(project, filled, OPTS);
+    const c1 = view.boards[0]!.circuits[0]!;
+    expect(Object.keys(c1.derived)).toEqual([...DERIVED_FIELDS]);
+    expect(c1.derived).toMatchObject({ iz_a: 19.5, vd_percent: 1.84, zs_design_ohm: 0.88, cpc_min_mm2: null, fault_current_a: null });
+    const html = renderPack(project, filled, OPTS);
+    const row = html.slice(html.indexOf('<table class="schedule">'), html.indexOf('</table>', html.indexOf('<table class="schedule">')));
+    const firstRow = row.slice(row.indexOf('<tbody>'), row.indexOf('</tr>', row.indexOf('<tbody>')));
+    const cells = [...firstRow.matchAll(/<td[^>]*>(.*?)<\/td>/g)].map((m) => m[1]!.replace(/<[^>]+>/g, ''));
+    // Ref, Circuit, Device, In, Ib, Iz, Cable, Method, Length, Max Zs, Design Zs, Disconn., Required, VD, Min cpc, Status
+    expect(cells.slice(3, 6)).toEqual(['6', '2', '19.5']);
+    expect(cells[10]).toBe('0.88');
+    expect(cells[11]).toBe('—');
+    expect(cells[12]).toBe('0.4');
+    expect(cells[13]).toBe('1.84');
+    expect(cells[14]).toBe('—');
+  });
+
+  it('gives every reading its verdict, date, tester and earlier values', () => {
+    const { project, assessment } = job(DEMO);
+    const view = buildView(project, assessment, OPTS);
+    const c10 = view.boards[0]!.circuits.find((c) => c.ref === '10')!;
+    const zs = c10.readings.find((r) => r.label === 'Zs')!;
+    const zsCheck = assessment.circuits.find((c) => c.board === 'DB1' && c.ref === '10')!.checks.find((k) => k.id === 'zs-measured')!;
+    expect(zs).toMatchObject({ shown: '1.39 Ω', date: '2026-11-20', by: 'R. Okafor', check: 'zs-measured', earlier: '9.8 Ω on 2026-11-13' });
+    expect(zs.look!.status).toBe(zsCheck.status);
+    // every recorded value of the circuit appears, none invented
+    expect(c10.readings.map((r) => r.label)).toEqual(['R1+R2', 'insulation L–L', 'insulation L–E', 'insulation test voltage', 'polarity', 'Zs']);
+  });
+
+  it('lists open items first in the summary, worst first, each with its circuit and reason', () => {
+    const { project, assessment } = job(FIXTURE);
+    const view = buildView(project, assessment, OPTS);
+    const statuses = view.openItems.map((o) => o.look.status);
+    expect(statuses[0]).toBe('fail');
+    expect(statuses.lastIndexOf('fail')).toBeLessThan(statuses.indexOf('not-verified'));
+    expect(statuses.lastIndexOf('not-verified')).toBeLessThan(statuses.indexOf('attention'));
+    expect(view.openItems[0]).toMatchObject({ board: 'DB-A', ref: '1', check: 'zs-measured' });
+    expect(view.openItems[0]!.basis).toMatch(/measured Zs 9.9 Ω >/);
+    const html = renderPack(project, assessment, OPTS);
+    const summary = html.slice(html.indexOf('id="summary"'), html.indexOf('id="supply"'));
+    expect(summary.indexOf('Open items')).toBeLessThan(summary.indexOf('Checks by status'));
+  });
+
+  it('escapes user text everywhere, header and footer included', () => {
+    const { project, assessment } = job(FIXTURE);
+    const pack = renderPackFiles(project, assessment, OPTS);
+    for (const text of [pack.html, pack.header, pack.footer]) {
+      expect(text).not.toMatch(/<script>alert|<b>bold|<em>new|<Sons>|<conversion>|<x>/);
+    }
+    expect(pack.html).toContain('1 Test Row &lt;script&gt;alert(1)&lt;/script&gt;');
+    expect(pack.html).toContain('Loft lighting &lt;em&gt;new&lt;/em&gt;');
+    expect(pack.header).toContain('Loft &lt;conversion&gt; &amp; &quot;studio&quot;');
+    expect(pack.footer).toContain('Ampersand &amp; &lt;Sons&gt; Electrical');
+    expect(pack.footer).toMatch(/DRAFT[\s\S]*page <span class="pageNumber"><\/span> of <span class="totalPages"><\/span>/);
+  });
+
+  it('names the rule set, each override of the job and each circuit of its own', () => {
+    const { project, assessment } = job('projects/marsh-street-surgery');
+    const view = buildView(project, assessment, OPTS);
+    expect(view.rules.params.find((p) => p.label.startsWith('Factor on max Zs'))).toMatchObject({ value: 0.75, overridden: true });
+    expect(view.rules.params.find((p) => p.label === 'Voltage factor Cmin')).toMatchObject({ overridden: false });
+    const fixture = job(FIXTURE);
+    const fv = buildView(fixture.project, fixture.assessment, OPTS);
+    expect(fv.rules.params.find((p) => p.label === 'Voltage factor Cmin')).toMatchObject({ value: 0.95, overridden: true });
+    expect(fv.rules.circuitOverrides).toEqual(['DB-A 3: required disconnection time 5 s set in circuits.csv']);
+  });
+
+  it('shows RA on a TT supply, "not recorded" for a missing value, and the sign-off people given', () => {
+    const tt = job('projects/marsh-street-surgery');
+    const html = renderPack(tt.project, tt.assessment, OPTS);
+    expect(html).toMatch(/RA \(earth electrode\)<\/dt><dd>19 Ω/);
+    const fixture = job(FIXTURE);
+    const fhtml = renderPack(fixture.project, fixture.assessment, OPTS);
+    expect(fhtml).not.toContain('RA (earth electrode)');
+    const signoff = fhtml.slice(fhtml.indexOf('id="signoff"'));
+    expect(signoff).toMatch(/<td>Designer<\/td><td>A. Designer &lt;x&gt;<\/td><td><\/td><td>2026-02-20<\/td>/);
+    expect(signoff).toMatch(/<td>Inspector<\/td><td><\/td><td><\/td><td><\/td>/);
+  });
+
+  it('names in the safety notes the circuits whose device would open too slowly, and those not verified', () => {
+    const { project, assessment } = job(FIXTURE);
+    const view = buildView(project, assessment, OPTS);
+    expect(view.safety.slow.map((c) => c.ref)).toEqual(['1']);
+    expect(view.safety.unverified.map((c) => c.ref)).toEqual(['1', '2', '3']);
+    const html = renderPack(project, assessment, OPTS);
+    const safety = html.slice(html.indexOf('id="safety"'), html.indexOf('id="signoff"'));
+    expect(safety).toMatch(/Isolate the supply and prove it dead/);
+    expect(safety).toMatch(/only competent persons/i);
+    expect(safety).toMatch(/does not replace the designer's judgement/);
+    expect(safety).toMatch(/DB-A circuit 1 \(Loft lighting &lt;em&gt;new&lt;\/em&gt;\)<\/a>\s*would open more slowly than required/);
+  });
+
+  it('says "No earlier revision" until revisions fill the changes, and "curve not available" without a snippet', () => {
+    const { project, assessment } = job(FIXTURE);
+    const view = buildView(project, assessment, OPTS);
+    const engine = createEngine();
+    const html = engine.render('pack.hbs', view);
+    expect(html).toMatch(/Changes since the previous revision<\/h2>\s*<p>No earlier revision.<\/p>/);
+    expect(html.match(/curve not available/g)).toHaveLength(3);
+    const svg = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><title>B6</title></svg>';
+    view.boards[0]!.circuits[0]!.snippetSvg = svg;
+    (view as { changes: unknown }).changes = 'circuit 1 re-tested';
+    const with_ = engine.render('pack.hbs', view);
+    expect(with_).toContain(svg);
+    expect(with_.match(/curve not available/g)).toHaveLength(2);
+    expect(with_).toContain('circuit 1 re-tested');
+  });
+
+  it('ranks a circuit by its worst check', () => {
+    expect(worstStatus(['pass', 'n/a', 'attention'])).toBe('attention');
+    expect(worstStatus(['pass', 'not-verified', 'fail'])).toBe('fail');
+    expect(worstStatus(['n/a'])).toBe('n/a');
+    expect(worstStatus(['pass', 'n/a'])).toBe('pass');
+  });
+});
+
+describe('the curve snippet request', () => {
+  const { project, assessment } = job(FIXTURE);
+  const circuit = (ref: string) => project.circuits.find((c) => c.ref === ref)!;
+  const derived = (ref: string) => assessment.circuits.find((c) => c.ref === ref)!.derived;
+  const readings = (ref: string) => project.readings.get(`DB-A/${ref}`)!;
+
+  it('puts the fault point at the measured Zs: I = U0 × Cmin / Zs', () => {
+    const plan = snippetRequest(circuit('1'), derived('1'), readings('1'), assessment.rules);
+    // IEC 60364-4-41, 411.4.4 (Zs × Ia ≤ U0) with Cmin 0.95: 230 × 0.95 / 9.9 = 22.07 A
+    expect(plan.request.faultCurrentA).toBeCloseTo(22.07, 2);
+    expect(plan.request).toMatchObject({ device: { code: 'mcb:B', rating_a: 6 }, requiredS: 0.4 });
+    expect(plan.caption).toMatch(/measured Zs 9.9 Ω \(2026-03-06\).*= 22.1 A; required within 0.4 s/);
+    expect(snippetRequest(circuit('3'), derived('3'), readings('3'), assessment.rules).request.requiredS).toBe(5);
+  });
+
+  it('falls back to the design fault current without a measured Zs, and draws no point for an over-range Zs', () => {
+    const none = snippetRequest(circuit('1'), { ...derived('1'), fault_current_a: 410, zs_design_ohm: 0.53 }, {}, assessment.rules);
+    expect(none.request.faultCurrentA).toBe(410);
+    expect(none.caption).toMatch(/design Zs 0.53 Ω: 410 A/);
+    const unknown = snippetRequest(circuit('1'), derived('1'), {}, assessment.rules);
+    expect(unknown.request.faultCurrentA).toBeNull();
+    const over = { zs_ohm: { value: { kind: 'at-least' as const, value: 20 }, date: '2026-03-06', file: 'r.csv', row: 2, earlier: [] } };
+    const o = snippetRequest(circuit('1'), { ...derived('1'), fault_current_a: 410 }, over, assessment.rules);
+    expect(o.request.faultCurrentA).toBeNull();
+    expect(o.caption).toMatch(/over range/);
+  });
+});
