@@ -115,7 +115,7 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
   }
 
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="sans-serif" font-size="9">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans, sans-serif" font-size="9">`,
     `<title>${escape(title)}</title>`,
     `<desc>${escape(desc.join(' '))}</desc>`,
     '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'

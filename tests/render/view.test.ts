@@ -35,7 +35,7 @@ describe('the pack view', () => {
   it('shows the derived values calc gives, and — where it gives none', () => {
     const { project, assessment } = job(FIXTURE);
     const filled: Assessment = structuredClone(assessment);
-    Object.assign(filled.circuits[0]!.derived, { iz_a: 19.5, vd_percent: 1.84, zs_design_ohm: 0.88 });
+    Object.assign(filled.circuits[0]!.derived, { iz_a: 19.5, vd_percent: 1.84, zs_design_ohm: 0.88, cpc_min_mm2: null, fault_current_a: null, disconnect_s: null });
     const view = buildView(project, filled, OPTS);
     const c1 = view.boards[0]!.circuits[0]!;
     expect(Object.keys(c1.derived)).toEqual([...DERIVED_FIELDS]);
@@ -119,7 +119,7 @@ describe('the pack view', () => {
     const { project, assessment } = job(FIXTURE);
     const view = buildView(project, assessment, OPTS);
     expect(view.safety.slow.map((c) => c.ref)).toEqual(['1']);
-    expect(view.safety.unverified.map((c) => c.ref)).toEqual(['1', '2', '3']);
+    expect(view.safety.unverified.map((c) => c.ref)).toEqual(['2']); // circuit 2's RCD trip time was not tested
     const html = renderPack(project, assessment, OPTS);
     const safety = html.slice(html.indexOf('id="safety"'), html.indexOf('id="signoff"'));
     expect(safety).toMatch(/Isolate the supply and prove it dead/);
@@ -128,20 +128,16 @@ describe('the pack view', () => {
     expect(safety).toMatch(/DB-A circuit 1 \(Loft lighting &lt;em&gt;new&lt;\/em&gt;\)<\/a>\s*would open more slowly than required/);
   });
 
-  it('says "No earlier revision" until revisions fill the changes, and "curve not available" without a snippet', () => {
+  it('says "No earlier revision" without a previous revision, draws a curve per circuit, and says "curve not available" without one', () => {
     const { project, assessment } = job(FIXTURE);
     const view = buildView(project, assessment, OPTS);
     const engine = createEngine();
     const html = engine.render('pack.hbs', view);
     expect(html).toMatch(/Changes since the previous revision<\/h2>\s*<p>No earlier revision.<\/p>/);
-    expect(html.match(/curve not available/g)).toHaveLength(3);
-    const svg = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><title>B6</title></svg>';
-    view.boards[0]!.circuits[0]!.snippetSvg = svg;
-    (view as { changes: unknown }).changes = 'circuit 1 re-tested';
-    const with_ = engine.render('pack.hbs', view);
-    expect(with_).toContain(svg);
-    expect(with_.match(/curve not available/g)).toHaveLength(2);
-    expect(with_).toContain('circuit 1 re-tested');
+    expect(html.match(/<svg [^>]*class="ps-curve"/g)).toHaveLength(3);
+    expect(html).not.toContain('curve not available');
+    view.boards[0]!.circuits[0]!.snippetSvg = null as unknown as string;
+    expect(engine.render('pack.hbs', view).match(/curve not available/g)).toHaveLength(1);
   });
 
   it('ranks a circuit by its worst check', () => {
@@ -171,7 +167,7 @@ describe('the curve snippet request', () => {
     const none = snippetRequest(circuit('1'), { ...derived('1'), fault_current_a: 410, zs_design_ohm: 0.53 }, {}, assessment.rules);
     expect(none.request.faultCurrentA).toBe(410);
     expect(none.caption).toMatch(/design Zs 0.53 Ω: 410 A/);
-    const unknown = snippetRequest(circuit('1'), derived('1'), {}, assessment.rules);
+    const unknown = snippetRequest(circuit('1'), { required_disconnect_s: 0.4 }, {}, assessment.rules);
     expect(unknown.request.faultCurrentA).toBeNull();
     const over = { zs_ohm: { value: { kind: 'at-least' as const, value: 20 }, date: '2026-03-06', file: 'r.csv', row: 2, earlier: [] } };
     const o = snippetRequest(circuit('1'), { ...derived('1'), fault_current_a: 410 }, over, assessment.rules);
