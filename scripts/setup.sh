@@ -3,5 +3,5 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/install-deps.sh
-node dist/cli.js build
+bash scripts/demo-archive.sh
 echo "packsmith: open out/index.html"
