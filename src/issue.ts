@@ -11,7 +11,7 @@ import { engineCache } from './render/engine.js';
 import { findChromium, NO_CHROMIUM_HELP } from './print/browser.js';
 import { dayOf } from './print/metadata.js';
 import { packData, dataBytes, type RevisionInfo } from './archive/data.js';
-import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
+import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
 import { inspectJob, type JobArchive } from './archive/verify.js';
 import { changesSince } from './archive/previous.js';
 import { manifestBytes, type Manifest } from './archive/manifest.js';
