@@ -4,12 +4,9 @@ import { parseArgs } from 'node:util';
 import { loadJob } from './job.js';
 import { formatError } from './load/raw.js';
 import { assessmentText } from './render/text.js';
-import { build, defaultJobs } from './build.js';
-import { NO_CHROMIUM_HELP } from './print/browser.js';
-import { deviceCommand } from './commands/device.js';
-import { issueCommand } from './commands/issue.js';
-import { verifyCommand } from './commands/verify.js';
 import { PAPER } from './model/schema.js';
+// build, issue and the printer (puppeteer-core, pdf-lib) load only for the commands that print,
+// so `check`, `device` and `verify` start quickly on site.
 import { existsSync, statSync } from 'node:fs';
 
 const USAGE = `usage:
@@ -57,6 +54,8 @@ async function buildCommand(args: string[]): Promise<Exit> {
       theme: { type: 'string' }, paper: { type: 'string' },
     },
   });
+  const { build, defaultJobs } = await import('./build.js');
+  const { NO_CHROMIUM_HELP } = await import('./print/browser.js');
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('no job folders given and none found under projects/\n');
@@ -83,9 +82,9 @@ async function main(argv: string[]): Promise<Exit> {
   switch (command) {
     case 'check': return check(rest);
     case 'build': return buildCommand(rest);
-    case 'device': return deviceCommand(rest);
-    case 'issue': return issueCommand(rest);
-    case 'verify': return verifyCommand(rest);
+    case 'device': return (await import('./commands/device.js')).deviceCommand(rest);
+    case 'issue': return (await import('./commands/issue.js')).issueCommand(rest);
+    case 'verify': return (await import('./commands/verify.js')).verifyCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;
