@@ -1,8 +1,7 @@
 // Source: BS 7671:2008 (17th edition, amendment 1) Tables 41.2 and 41.4 — maximum earth fault loop
 // impedance Zs (Ω) for fuses to BS 88-2 (fuse systems E and G), U0 = 230 V, no Cmin, as quoted in
 // the team's REFERENCE.md. Each value is Zs = U0 / Ia, Ia read from the BS 88-2 time-current
-// characteristic (BS 7671 Appendix 3); the 0.4 s values are also printed in NICEIC Connections,
-// winter 2011-12, Table 2.
+// characteristic (BS 7671 Appendix 3).
 
 export const BS88_2_TABLE_U0_V = 230;
 
