@@ -157,7 +157,8 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const latest = archive.revisions.at(-1) ?? null;
       const n = (latest?.number ?? 0) + 1;
       const info: RevisionInfo = { number: n, date: opts.date, by: opts.by.trim(), reason: opts.reason?.trim() || null };
-      const label = { label: `Revision ${n}`, draft: false, date: opts.date };
+      const accepted = opts.acceptOpenItems && assessment.summary.fail + assessment.summary['not-verified'] > 0;
+      const label = { label: `Revision ${n}`, draft: false, date: opts.date, acceptedOpenItems: accepted };
       const data = dataBytes(packData(project, assessment, VERSION, info));
       const since = changesSince(latest, JSON.parse(data), { by: info.by, date: info.date, reason: info.reason });
       if (!since.ok) return refuse(1, `cannot compare with Revision ${latest?.number}: ${since.why}; run packsmith verify`);
@@ -183,7 +184,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
           job: project.name,
           title: project.file.title,
           firm: project.file.installer.firm,
-          revision: { ...info, accepted_open_items: opts.acceptOpenItems && assessment.summary.fail + assessment.summary['not-verified'] > 0 },
+          revision: { ...info, accepted_open_items: accepted },
           rules: { ...assessment.rules },
           summary: assessment.summary,
           previous: latest ? { revision: latest.number, manifest_sha256: latest.manifestSha } : null,

@@ -19,6 +19,8 @@ export interface PackLabel {
   label: string;
   draft: boolean;
   date: string;
+  /** issued although checks failed or are not verified (--accept-open-items) */
+  acceptedOpenItems?: boolean;
 }
 
 /** How a job's packs look: its theme's engine, its paper, and a hash of every template used. */
@@ -54,7 +56,7 @@ export function cachedTreeHash(): (dir: string) => string {
 }
 
 export function packFiles(project: Project, assessment: Assessment, label: PackLabel, changes: Changes | null, style: PackStyle): RenderedPack {
-  return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes }, style.engine);
+  return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes, acceptedOpenItems: label.acceptedOpenItems ?? false }, style.engine);
 }
 
 export async function packPdf(

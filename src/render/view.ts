@@ -38,6 +38,8 @@ export interface RenderOptions {
   /** the date printed on the cover (issue date; for drafts the last test date) */
   date: string;
   paper?: Paper;
+  /** issued although checks failed or are not verified: the cover says so */
+  acceptedOpenItems?: boolean;
   /** what changed since the previous revision (the archive computes it); null: nothing to compare */
   changes?: Changes | null;
 }
@@ -257,6 +259,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     },
     revision: opts.revisionLabel,
     draft: opts.draft,
+    acceptedOpenItems: opts.acceptedOpenItems ?? false,
     date: opts.date,
     paper: { name: paper, css: paper === 'Letter' ? 'letter' : 'A4' },
     overall: look(overallStatus(assessment)),

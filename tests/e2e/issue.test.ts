@@ -51,6 +51,7 @@ describe('packsmith issue: two revisions of one job', () => {
     for (const f of readdirSync(rev(1))) expect(mode(join(rev(1), f))).toBe(0o444);
     const record = parse(readFileSync(join(job, 'revisions.yaml'), 'utf8')) as { revisions: Record<string, unknown>[] };
     expect(record.revisions).toEqual([expect.objectContaining({ revision: 1, date: '2026-10-10', by: 'T. Marwood', reason: 'Handover', accepted_open_items: false })]); // nothing was open, so nothing was accepted
+    expect(readFileSync(join(rev(1), 'pack.html'), 'utf8')).not.toMatch(/Issued with open items accepted/);
     const manifest = JSON.parse(readFileSync(join(rev(1), 'manifest.json'), 'utf8')) as Record<string, any>;
     expect(Object.keys(manifest.inputs)).toEqual(['circuits.csv', 'project.yaml', 'readings/2026-10-09.csv']);
     expect(manifest.inputs['circuits.csv']).toBe(sha(join(job, 'circuits.csv')));
@@ -157,6 +158,8 @@ describe('packsmith issue: refusals and open items', () => {
     expect(openAt).toBeLessThan(html.indexOf('<section class="board"'));
     const firstRow = /<table class="open">\s*<thead>[\s\S]*?<\/thead>\s*<tbody>\s*<tr>([\s\S]*?)<\/tr>/.exec(html)![1]!;
     expect(firstRow).toMatch(/polarity.*fail/);
+    // the cover says the revision was issued with open items accepted
+    expect(html.slice(0, html.indexOf('id="summary"'))).toMatch(/Issued with open items accepted/);
   });
 
   it('refuses a job with errors, a bad date, and no --by', () => {
