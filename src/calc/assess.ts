@@ -2,6 +2,7 @@
 import type { Project } from '../model/validate.js';
 import type { Board, Circuit, Supply } from '../model/schema.js';
 import { circuitKey, type CircuitReadings } from '../model/readings.js';
+import { significant } from '../model/units.js';
 import { maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { design as designOf } from './design/index.js';
@@ -12,7 +13,6 @@ import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
 import { STATUSES, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
-const significant = (n: number): number => Number(n.toPrecision(3));
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
 export function circuitContext(

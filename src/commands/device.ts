@@ -3,7 +3,7 @@
 // max Zs = U0 × Cmin / Ia for each required time (CONTRACT.md).
 import { parseArgs } from 'node:util';
 import { DEVICE_CODES, type DeviceCode } from '../reference/device-codes.js';
-import { parseCell, type Quantity } from '../model/units.js';
+import { parseCell, significant, type Quantity } from '../model/units.js';
 import { DEFAULT_RULES } from '../calc/rules.js';
 import { characteristic, deviceFamily, maxZs, operatingTime, ratingProblem, type Device } from '../calc/devices/index.js';
 
@@ -20,7 +20,7 @@ function quantity(text: string, q: Quantity, what: string): number {
   return r.reading.value;
 }
 
-const sig = (n: number | null): number | null => (n === null ? null : Number(n.toPrecision(3)));
+const sig = (n: number | null): number | null => (n === null ? null : significant(n));
 
 interface DeviceReport {
   device: DeviceCode;

@@ -147,6 +147,9 @@ export function unitFits(unit: string, q: Quantity): boolean {
   return QUANTITIES[q].units[unit.replace(/\s+/g, '')] !== undefined;
 }
 
+/** A number kept to `sig` significant digits, for derived values in JSON (317 A, 0.0253 s). */
+export const significant = (n: number, sig = 3): number => Number(n.toPrecision(sig));
+
 export function symbolOf(q: Quantity): string {
   return QUANTITIES[q].symbol;
 }

@@ -1,5 +1,5 @@
 // The queries on a device's characteristic. All pure; null where the library cannot answer.
-import { fmt, type Reading } from '../../model/units.js';
+import { fmt, significant, type Reading } from '../../model/units.js';
 import { INSTANTANEOUS_TIME_S } from '../../reference/circuit-breakers.js';
 import { currentFor, show, timeAt } from './curve.js';
 import { breakerType, characteristic, type Device } from './lookup.js';
@@ -73,5 +73,3 @@ export function measuredFault(
   const t = operatingTime(device, current).slowest_s;
   return { fault_current_a: significant(current), disconnect_s: t === null ? null : significant(t) };
 }
-
-const significant = (n: number): number => Number(n.toPrecision(3));
