@@ -21,6 +21,7 @@ import { isWorkingName } from '../../src/archive/files.js';
 import { profilesFolder } from '../../src/print/browser.js';
 
 const JOB = 'archive-job';
+const CAMPAIGN = process.env.PACKSMITH_KILLS !== undefined;
 const KILLS = Number(process.env.PACKSMITH_KILLS ?? 4);
 const made: string[] = [];
 afterAll(() => made.forEach(removeTree));
@@ -106,7 +107,7 @@ describe('an issue stopped at every named step: the state a kill there leaves', 
     expect(r.stdout).toContain('issued Revision 2');
     expect(readdirSync(jobArchive(root)).some(isWorkingName)).toBe(false);
     expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
-  });
+  }, 240_000);
 
   it('the next issue records a revision that a run stopped before recording left out of revisions.yaml', () => {
     const root = at.get('committed')!;
@@ -119,7 +120,7 @@ describe('an issue stopped at every named step: the state a kill there leaves', 
     expect(recorded(root)).toEqual([1, 2]);
     expect(existsSync(join(jobArchive(root), 'rev-3'))).toBe(false);
     expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
-  });
+  }, 240_000);
 });
 
 describe(`an issue killed outright (${KILLS} random moments and three named steps)`, () => {
@@ -146,6 +147,8 @@ describe(`an issue killed outright (${KILLS} random moments and three named step
       if (killed && c.step === 'printed') expect(profiles().some((p) => p.startsWith(`${run.child.pid}-`))).toBe(true);
       if (killed) {
         expectRecoverable(root, c.step);
+        // the next run recovers (every kill of the campaign; in the suite, the kill while Chromium was up)
+        if (!CAMPAIGN && c.step !== 'printed') continue;
         const next = packsmith(issueArgs(root));
         expect([0, 1]).toContain(next.code);
         if (next.code === 1) expect(next.stderr).toMatch(/nothing changed since Revision 2/);

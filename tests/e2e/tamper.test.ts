@@ -2,7 +2,7 @@
 // hiding a revision, and every edit of revisions.yaml, is a finding of verify. Where the one who
 // tampers also rewrites the other side of the record (the manifest hashes and revisions.yaml), only
 // the firm's signature can tell, so those cases are checked with the firm's public key.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { chmodSync, cpSync, existsSync, mkdirSync, readFileSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse, stringify } from 'yaml';
@@ -11,6 +11,7 @@ import { copyFixture, edit, removeTree, scratch, sha } from '../helpers/archive.
 import { audit } from '../../src/archive/audit.js';
 import { loadPublicKey } from '../../src/archive/sign.js';
 
+vi.setConfig({ testTimeout: 180_000 }); // a few cases run the command line, which prints nothing but starts slowly on a busy machine
 const JOB = 'archive-job';
 const made: string[] = [];
 afterAll(() => made.forEach(removeTree));
