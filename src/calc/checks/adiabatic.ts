@@ -9,7 +9,7 @@
 import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { ADIABATIC_LIMIT_S, kFor } from '../design/k-factor.js';
-import { letThrough, type Energy } from '../design/let-through.js';
+import { letThrough, type Energy, type LetThroughInputs } from '../design/let-through.js';
 import { earthFaultMax } from '../fault-level.js';
 import { rcdBreakTime } from '../devices/rcd.js';
 import { notVerified, result, worst } from './result.js';
@@ -18,9 +18,21 @@ const id = 'adiabatic';
 
 interface Part { status: Status; words: string; energy: Energy | null }
 
+/** What the circuit and the job say about the device's let-through. */
+function inputsOf(ctx: CircuitContext): LetThroughInputs {
+  const { circuit, rules, fault } = ctx;
+  const range = rules.devices[circuit.device];
+  return {
+    maker_a2s: circuit.let_through_a2s,
+    icn_ka: circuit.breaking_ka ?? range?.breaking_ka,
+    energy_class: range?.energy_class,
+    ia: fault.known && fault.makerIa ? { ia_a: fault.makerIa, within_s: ctx.derived.required_disconnect_s } : undefined,
+  };
+}
+
 /** The let-through at a current and how it compares with k²S². */
 function judgeAt(ctx: CircuitContext, what: string, currentA: number, k2s2: number): Part {
-  const { circuit, supply, rules } = ctx;
+  const { circuit, supply } = ctx;
   const at = `${what} ${fmt(currentA)} A`;
   // TT with an RCD giving fault protection: it breaks within its time at this residual current
   if (supply.earthing === 'TT' && circuit.rcd_ma !== undefined) {
@@ -31,14 +43,7 @@ function judgeAt(ctx: CircuitContext, what: string, currentA: number, k2s2: numb
       if (e <= k2s2) return { status: 'pass', words: `${at}: ${energy.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy };
     }
   }
-  const range = rules.devices[circuit.device];
-  const ia = ctx.fault.known && ctx.fault.makerIa ? { ia_a: ctx.fault.makerIa, within_s: ctx.derived.required_disconnect_s } : undefined;
-  const lt = letThrough({ code: circuit.device, rating_a: circuit.rating_a }, currentA, {
-    maker_a2s: circuit.let_through_a2s,
-    icn_ka: circuit.breaking_ka ?? range?.breaking_ka,
-    energy_class: range?.energy_class,
-    ia,
-  });
+  const lt = letThrough({ code: circuit.device, rating_a: circuit.rating_a }, currentA, inputsOf(ctx));
   if (!lt.bound) return { status: 'not-verified', words: `${at}: the device is not known to operate at this current`, energy: null };
   if (lt.bound.i2t_a2s <= k2s2) return { status: 'pass', words: `${at}: ${lt.bound.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy: lt.bound };
   if (!lt.beyondCurve) return { status: 'fail', words: `${at}: ${lt.bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: lt.bound };
@@ -51,11 +56,15 @@ function judgeAt(ctx: CircuitContext, what: string, currentA: number, k2s2: numb
   return { status: 'attention', words: `${at}: let-through not known (${lt.unknown}); ${lt.bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: null };
 }
 
-/** The energy at the minimum fault current (for the derived minimum cpc), or null. */
+/**
+ * The energy at the minimum fault current, for the derived minimum cpc: the maker's or the class's
+ * figure where one applies, else the characteristic's bound (as a designer works it by hand).
+ */
 export function minimumFaultEnergy(ctx: CircuitContext): Energy | null {
-  const { circuit, fault } = ctx;
+  const { fault } = ctx;
   if (!fault.known || fault.time_s === null || fault.time_s > ADIABATIC_LIMIT_S) return null;
-  return judgeAt(ctx, 'minimum fault current', fault.current_a, 0).energy;
+  const lt = letThrough({ code: ctx.circuit.device, rating_a: ctx.circuit.rating_a }, fault.current_a, inputsOf(ctx));
+  return lt.better ?? lt.bound;
 }
 
 export const adiabatic: Check = (ctx): CheckResult => {
