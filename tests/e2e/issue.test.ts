@@ -115,7 +115,7 @@ describe('packsmith issue: two revisions of one job', () => {
   it('refuses to issue into an archive that lacks the revisions revisions.yaml records', () => {
     const r = issue(job, out, '--date', '2026-10-13', '--accept-open-items', '--archive', join(root, 'elsewhere'));
     expect(r.code).toBe(1);
-    expect(r.stderr).toMatch(/revisions\.yaml records revision 1, which .*elsewhere\/archive-job does not hold/);
+    expect(r.stderr).toMatch(/revisions\.yaml: records revision 1, which .*elsewhere\/archive-job does not hold/);
     expect(existsSync(join(root, 'elsewhere'))).toBe(false);
   });
 
