@@ -2,7 +2,7 @@
 // Incremental: a job whose draft was built from the same inputs, templates, packsmith version and
 // latest revision is skipped (--force builds it anyway). One Chromium serves the whole build,
 // started only when something needs printing; without one, the HTML is still written.
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { mkdirSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
@@ -16,13 +16,19 @@ import { inspectJob } from './archive/verify.js';
 import { changesSince } from './archive/previous.js';
 import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
-import { writeSite } from './archive/site.js';
+import { writeSite, type SiteSource } from './archive/site.js';
+import { jobArchiveSettings } from './archive/location.js';
+import { jobFolders } from './load/jobs.js';
 import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
 export interface BuildOptions {
   jobs: string[];
   out: string;
+  /** `--archive DIR`: where issued revisions live (else the firm file's `archive`, else archive/ beside the job folders' folder) */
+  archive?: string | null;
+  /** today's date (read by the command line): a test session dated later is an input error */
+  today?: string;
   /** rebuild every job, changed or not */
   force?: boolean;
   /** where messages go (stderr by default) */
@@ -48,13 +54,7 @@ export interface BuildResult {
 }
 
 /** Every folder under projects/ that holds a project.yaml. */
-export function defaultJobs(root = 'projects'): string[] {
-  if (!existsSync(root)) return [];
-  return readdirSync(root)
-    .map((n) => join(root, n))
-    .filter((p) => statSync(p).isDirectory() && existsSync(join(p, 'project.yaml')))
-    .sort();
-}
+export const defaultJobs = (root = 'projects'): string[] => jobFolders(root);
 
 /** The last test date, for a draft's cover (no wall-clock time in outputs). */
 function lastTestDate(sessions: { date: string }[], fallback: string | undefined): string {
@@ -75,9 +75,10 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
   const names = new Map<string, string>();
+  const sources: SiteSource[] = [];
   try {
     for (const dir of opts.jobs) {
-      const job = loadJob(dir);
+      const job = loadJob(dir, opts.today ? { today: opts.today } : {});
       const twin = names.get(job.raw.name);
       if (twin !== undefined) {
         const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${job.raw.name}/` };
@@ -86,15 +87,18 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         continue;
       }
       names.set(job.raw.name, dir);
-      if (!job.ok) {
-        result.invalid.push({ job: job.raw.name, errors: job.errors });
-        for (const e of job.errors) log(`${job.raw.name}/${formatError(e)}`);
+      const where = jobArchiveSettings(dir, opts.archive ?? null);
+      if (!job.ok || where.errors.length > 0) {
+        const errors = [...where.errors, ...(job.ok ? [] : job.errors)];
+        result.invalid.push({ job: job.raw.name, errors });
+        for (const e of errors) log(`${job.raw.name}/${formatError(e)}`);
         progress.tick(job.raw.name);
         continue;
       }
       const { project, assessment } = job;
       const target = join(out, project.name, 'draft');
-      const latest = inspectJob(out, project.name).revisions.at(-1) ?? null;
+      sources.push({ job: project.name, archive: where.archive });
+      const latest = inspectJob(where.archive, project.name).revisions.at(-1) ?? null;
       const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
       const fingerprint: Fingerprint = {
         packsmith: VERSION,
@@ -122,7 +126,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
       result.built.push(built);
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, title: project.file.title, date, summary: assessment.summary, outputs }));
+      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, date, summary: assessment.summary, outputs }));
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
@@ -148,6 +152,6 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     await Promise.allSettled(printing);
     await printer?.close();
   }
-  writeSite(out);
+  writeSite(out, sources);
   return result;
 }

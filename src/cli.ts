@@ -8,16 +8,25 @@ import { PAPER } from './model/schema.js';
 // build, issue and the printer (puppeteer-core, pdf-lib) load only for the commands that print,
 // so `check`, `device` and `verify` start quickly on site.
 import { existsSync, statSync } from 'node:fs';
+import { today } from './commands/today.js';
 
 const USAGE = `usage:
-  packsmith build [job-folder...] [--out DIR] [--force] [--theme DIR] [--paper A4|Letter]
+  packsmith build [job-folder...] [--out DIR] [--force] [--theme DIR] [--paper A4|Letter] [--archive DIR]
                                                 render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are
                                                 skipped unless --force; --theme: a firm's folder of templates, partials, stylesheet, logo
   packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
   packsmith device <code> <rating> [--at AMPS] [--within SECONDS] [--u0 V] [--cmin C] [--json]   look up a device's characteristic
-  packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR]
-                                                freeze the next revision into DIR/<job>/rev-N/; exit 0 issued, 1 refused, 2 invalid input
-  packsmith verify [DIR]                        re-hash every issued revision in DIR (default out/); exit 1 on any finding
+  packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR] [--archive DIR] [--key FILE]
+                                                freeze the next revision into the job's archive (archive/<job>/rev-N/ beside the job
+                                                folders' folder, or packsmith.yaml's archive:), signed with --key (or PACKSMITH_KEY);
+                                                exit 0 issued, 1 refused, 2 invalid input
+  packsmith verify [DIR] [--key FILE.pub] [--archive DIR]
+                                                check the record both ways: each job's revisions.yaml against the archive, every file
+                                                against its manifest, every signature (DIR: job folders' folder, default projects/, a job
+                                                folder, or an archive folder); exit 1 on any finding
+  packsmith key create FILE                     a new Ed25519 key pair: FILE (private, mode 600) and FILE.pub
+  packsmith archive move-from <out-dir> [jobs-folder] [--archive DIR]
+                                                move revisions an earlier packsmith issued into <out-dir>/<job>/rev-N/ into the archive
 `;
 
 type Exit = 0 | 1 | 2;
@@ -28,7 +37,7 @@ function check(args: string[]): Exit {
     process.stderr.write(`packsmith check needs one job folder\n${USAGE}`);
     return 2;
   }
-  const job = loadJob(positionals[0]!);
+  const job = loadJob(positionals[0]!, { today: today() });
   if (!job.ok) {
     for (const e of job.errors) process.stderr.write(`${formatError(e)}\n`);
     process.stderr.write(`${job.errors.length} problem${job.errors.length === 1 ? '' : 's'} in ${job.raw.name}; nothing was assessed\n`);
@@ -51,7 +60,7 @@ async function buildCommand(args: string[]): Promise<Exit> {
     allowPositionals: true,
     options: {
       out: { type: 'string', default: 'out' }, force: { type: 'boolean', default: false },
-      theme: { type: 'string' }, paper: { type: 'string' },
+      theme: { type: 'string' }, paper: { type: 'string' }, archive: { type: 'string' },
     },
   });
   const { build, defaultJobs } = await import('./build.js');
@@ -70,7 +79,7 @@ async function buildCommand(args: string[]): Promise<Exit> {
     process.stderr.write(`packsmith: --theme "${values.theme}": no such folder; expected a folder of templates, partials, pack.css, theme.css or a logo\n`);
     return 2;
   }
-  const r = await build({ jobs, out: values.out!, force: values.force!, theme: values.theme ?? null, ...(paper ? { paper } : {}) });
+  const r = await build({ jobs, out: values.out!, force: values.force!, theme: values.theme ?? null, archive: values.archive ?? null, today: today(), ...(paper ? { paper } : {}) });
   for (const b of r.built) process.stdout.write(`${b.job}: ${b.html}${b.pdf ? `\n${b.job}: ${b.pdf}` : ''}\n`);
   for (const s of r.skipped) process.stdout.write(`${s.job}: unchanged, kept ${s.dir}\n`);
   if (r.pdfSkipped) process.stderr.write(`${NO_CHROMIUM_HELP}\n`);
@@ -85,6 +94,8 @@ async function main(argv: string[]): Promise<Exit> {
     case 'device': return (await import('./commands/device.js')).deviceCommand(rest);
     case 'issue': return (await import('./commands/issue.js')).issueCommand(rest);
     case 'verify': return (await import('./commands/verify.js')).verifyCommand(rest);
+    case 'key': return (await import('./commands/key.js')).keyCommand(rest);
+    case 'archive': return (await import('./commands/archive.js')).archiveCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;

@@ -11,5 +11,6 @@ export { launchBrowser, findChromium } from './print/browser.js';
 export { build } from './build.js';
 export { issueRevision, type IssueOptions, type IssueResult } from './issue.js';
 export { verifyArchive, type Finding } from './archive/verify.js';
+export { audit, type AuditScope } from './archive/audit.js';
 export { writeSite } from './archive/site.js';
 export type { Assessment, CheckResult, Status } from './calc/types.js';

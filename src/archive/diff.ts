@@ -36,8 +36,12 @@ export function diffData(prev: PackData & { revision: RevisionInfo }, next: Pack
   const changes: Changes = {
     since: { revision: prev.revision.number, date: prev.revision.date },
     issued,
-    circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [],
+    circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [], lateSessions: [],
   };
+  const earlier = new Set(prev.sessions.map((s) => s.file));
+  for (const s of next.sessions) {
+    if (!earlier.has(s.file) && s.date <= prev.revision.date) changes.lateSessions.push({ file: s.file, date: s.date });
+  }
   const before = new Map(prev.circuits.map((c) => [circuitKey(c.board, c.ref), c]));
   const after = new Set(next.circuits.map((c) => circuitKey(c.board, c.ref)));
   for (const c of prev.circuits) {
@@ -90,5 +94,5 @@ export function diffData(prev: PackData & { revision: RevisionInfo }, next: Pack
 
 /** The section of revision 1, which has nothing before it. */
 export const firstIssue = (issued: Changes['issued']): Changes => ({
-  since: null, issued, circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [],
+  since: null, issued, circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [], lateSessions: [],
 });

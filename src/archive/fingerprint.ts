@@ -24,6 +24,8 @@ export type Fingerprint = z.output<typeof FingerprintSchema>;
 const StampSchema = z.object({
   format: z.literal('packsmith-build/1'),
   fingerprint: FingerprintSchema,
+  /** the job's archive folder (absolute), so the site can link its revisions */
+  archive: z.string().optional(),
   title: z.string(),
   date: z.string(),
   summary: SummarySchema,

@@ -1,8 +1,9 @@
 // The archive site: DIR/index.html lists every job with its latest revision, its status, its
 // issue dates and links to every revision's HTML and PDF; DIR/<job>/index.html lists one job.
 // Plain static pages with relative links: they work from file:// and any web server, no script.
-import { existsSync, mkdirSync } from 'node:fs';
-import { join } from 'node:path';
+// The revisions stay in the archive folder (kept with the jobs); the site, in out/, links them.
+import { mkdirSync, readdirSync } from 'node:fs';
+import { join, relative } from 'node:path';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
 import { overallStatus, STATUS_LOOK } from '../render/view.js';
@@ -40,10 +41,21 @@ export function countsText(summary: Summary): string {
   return parts.join(', ');
 }
 
-/** What the archive folder holds for one job, read from its manifests and its draft's build.json. */
-export function siteJob(out: string, job: string): SiteJob | null {
-  const archive = inspectJob(out, job);
+/** A job and the archive folder that holds its revisions. */
+export interface SiteSource {
+  job: string;
+  archive: string;
+}
+
+/** Links from out/<job>/ to a file of the job's archive (relative, so the site works from disk). */
+const linkTo = (out: string, job: string, archive: string, file: string): string =>
+  relative(join(out, job), join(archive, job, file)).split('\\').join('/');
+
+/** What the archive holds for one job (its manifests) and its draft in `out` (its build.json). Links are relative to out/<job>/. */
+export function siteJob(out: string, job: string, archiveDir: string | null = null): SiteJob | null {
   const stamp = readStamp(join(out, job, 'draft'));
+  const where = archiveDir ?? stamp?.archive ?? null;
+  const archive = where ? inspectJob(where, job) : { revisions: [], findings: [] };
   if (archive.revisions.length === 0 && !stamp) return null;
   const revisions = archive.revisions.map((r) => ({
     name: `Revision ${r.number}`,
@@ -52,8 +64,8 @@ export function siteJob(out: string, job: string): SiteJob | null {
     reason: r.manifest.revision.reason,
     status: statusWord(r.manifest.summary),
     counts: countsText(r.manifest.summary),
-    html: `${revisionDirName(r.number)}/pack.html`,
-    pdf: `${revisionDirName(r.number)}/pack.pdf`,
+    html: linkTo(out, job, where!, `${revisionDirName(r.number)}/pack.html`),
+    pdf: linkTo(out, job, where!, `${revisionDirName(r.number)}/pack.pdf`),
   }));
   const draft = stamp && {
     name: 'Draft',
@@ -129,11 +141,23 @@ export function renderIndex(jobs: SiteJob[]): string {
 
 export const renderJobPage = (job: SiteJob): string => jobPage(job);
 
-/** Write the site of the archive folder `out` from what it holds. */
-export function writeSite(out: string): SiteJob[] {
+/**
+ * Write the site in `out`: every job with a draft there (its build.json names its archive), every
+ * job of `sources`, and every other job of their archive folders.
+ */
+export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
   mkdirSync(out, { recursive: true });
-  const jobs = archiveJobs(out).map((j) => siteJob(out, j)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) if (existsSync(join(out, j.job))) writeReplacing(join(out, j.job, 'index.html'), renderJobPage(j));
+  const where = new Map<string, string | null>();
+  for (const name of readdirSync(out, { withFileTypes: true })) {
+    if (name.isDirectory() && !name.name.startsWith('.')) where.set(name.name, null);
+  }
+  for (const a of new Set(sources.map((s) => s.archive))) for (const j of archiveJobs(a)) where.set(j, a);
+  for (const s of sources) where.set(s.job, s.archive);
+  const jobs = [...where].map(([j, a]) => siteJob(out, j, a)).filter((j): j is SiteJob => j !== null);
+  for (const j of jobs) {
+    mkdirSync(join(out, j.job), { recursive: true });
+    writeReplacing(join(out, j.job, 'index.html'), renderJobPage(j));
+  }
   writeReplacing(join(out, 'index.html'), renderIndex(jobs));
   return jobs;
 }

@@ -98,7 +98,12 @@ function tableRows<S extends z.ZodType>(
  */
 export type CircuitRule = (circuit: Circuit, file: ProjectFile | null) => { field: string; message: string } | null;
 
-export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = []): Validation {
+export interface ValidateOptions {
+  /** today's date (YYYY-MM-DD), passed in by the caller that reads the clock: a test session dated later is an error */
+  today?: string;
+}
+
+export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], opts: ValidateOptions = {}): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
   errors.push(...yErrors);
@@ -144,6 +149,9 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
   const sessionRows: SessionRow[] = [];
   const { columns } = readingSettings(job, file);
   for (const s of job.sessions) {
+    if (opts.today !== undefined && s.date > opts.today) {
+      errors.push({ file: s.table.file, row: 1, column: 1, message: `test session dated ${s.date}, after today (${opts.today}); a readings file is named after the day its tests were done` });
+    }
     const mapped = mapColumns(s.table, columns);
     errors.push(...mapped.errors);
     const table = mapped.table;

@@ -40,6 +40,8 @@ export interface RenderOptions {
   paper?: Paper;
   /** issued although checks failed or are not verified: the cover says so */
   acceptedOpenItems?: boolean;
+  /** fingerprint of the firm key that signs this revision; null: unsigned (and every draft) */
+  keyFingerprint?: string | null;
   /** what changed since the previous revision (the archive computes it); null: nothing to compare */
   changes?: Changes | null;
 }
@@ -57,6 +59,8 @@ export interface Changes {
   verdicts: { board: string; ref: string; check: string; before: Status; after: Status }[];
   /** project.yaml and notes.md: supply, rules, boards, parties */
   job: { field: string; before: string; after: string }[];
+  /** test sessions added since the previous revision although dated on or before its issue date */
+  lateSessions: { file: string; date: string }[];
 }
 
 /** What the theme gives the view: its stylesheets and logo. */
@@ -275,12 +279,13 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     notesHtml: project.notes ? markdownToHtml(project.notes, { topLevel: 3 }) : null,
     changes: opts.changes ? changesView(opts.changes) : null,
     safety: { slow, unverified },
+    keyFingerprint: opts.keyFingerprint ?? null,
     signoff: [signer('Designer', f.signoff.designer), signer('Installer', f.signoff.installer), signer('Inspector', f.signoff.inspector)],
   };
 }
 
 function changesView(c: Changes) {
-  const count = c.circuitsAdded.length + c.circuitsRemoved.length + c.design.length + c.readings.length + c.verdicts.length + c.job.length;
+  const count = c.circuitsAdded.length + c.circuitsRemoved.length + c.design.length + c.readings.length + c.verdicts.length + c.job.length + c.lateSessions.length;
   return {
     ...c,
     verdicts: c.verdicts.map((v) => ({ ...v, before: look(v.before), after: look(v.after) })),

@@ -91,7 +91,9 @@ describe('the archive site', () => {
         expect(existsSync(join(out, dirname(p), h))).toBe(true);
       }
     }
-    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/rev-1/pack.html', 'archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
-    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', 'rev-1/pack.html', 'rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
+    // the revisions stay in the archive beside projects/; the site in out/ links them there
+    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/../../archive/archive-job/rev-1/pack.html', 'archive-job/../../archive/archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
+    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', '../../archive/archive-job/rev-1/pack.html', '../../archive/archive-job/rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
+    expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false);
   });
 });

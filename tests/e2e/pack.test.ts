@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { packsmith } from '../helpers/cli.js';
+import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
 import { pdfText } from '../helpers/pdf.js';
 import { pdfStructure, type OutlineItem } from '../helpers/pdf-structure.js';
 
@@ -14,9 +14,9 @@ const titles = (items: OutlineItem[]) => items.map((i) => i.title);
 
 describe('the printed pack', () => {
   beforeAll(() => {
-    const r = packsmith(['build', 'projects/tannery-row-refit', 'tests/fixtures/long-board', '--out', out]);
+    const r = packsmith(['build', 'projects/tannery-row-refit', 'tests/fixtures/long-board', '--out', out, ...NO_ARCHIVE]);
     if (r.code !== 0) throw new Error(r.stderr);
-    const l = packsmith(['build', 'tests/fixtures/pack-job', '--out', letter, '--paper', 'letter']);
+    const l = packsmith(['build', 'tests/fixtures/pack-job', '--out', letter, '--paper', 'letter', ...NO_ARCHIVE]);
     if (l.code !== 0) throw new Error(l.stderr);
   });
 
