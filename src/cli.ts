@@ -18,6 +18,9 @@ const USAGE = `usage:
   packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR]
                                                 freeze the next revision into DIR/<job>/rev-N/; exit 0 issued, 1 refused, 2 invalid input
   packsmith verify [DIR]                        re-hash every issued revision in DIR (default out/); exit 1 on any finding
+  packsmith serve [folder] [--port N] [--host H] [--out DIR]
+                                                live drafts of every job in folder (default projects/), re-rendered on save, and a page
+                                                per job to record a test session; 127.0.0.1:4417 by default (another host needs the printed token)
 `;
 
 type Exit = 0 | 1 | 2;
@@ -85,6 +88,7 @@ async function main(argv: string[]): Promise<Exit> {
     case 'device': return (await import('./commands/device.js')).deviceCommand(rest);
     case 'issue': return (await import('./commands/issue.js')).issueCommand(rest);
     case 'verify': return (await import('./commands/verify.js')).verifyCommand(rest);
+    case 'serve': return (await import('./commands/serve.js')).serveCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;
