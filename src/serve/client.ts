@@ -2,15 +2,23 @@
 // Content-Security-Policy allows no other script). Neither is needed to read a pack or to save a
 // session: the form posts without them.
 
-/** A draft or the index: reload when the server says the job changed, keeping the scroll position. */
+/**
+ * A draft or the index: reload when the server says the job changed, keeping the scroll position.
+ * On connecting, the server tells a draft's page the job's version: a save made while the page
+ * was loading is not missed.
+ */
 export const RELOAD_SCRIPT = `(() => {
   const me = document.currentScript;
   const job = me.dataset.job || '';
+  const mine = Number(me.dataset.version);
   const key = 'packsmith-scroll:' + location.pathname;
   const y = sessionStorage.getItem(key);
   if (y !== null) { sessionStorage.removeItem(key); window.scrollTo(0, Number(y)); }
   const es = new EventSource('/events' + (job ? '?job=' + encodeURIComponent(job) : ''));
-  es.addEventListener('reload', () => {
+  es.addEventListener('reload', (e) => {
+    let told = null;
+    try { told = JSON.parse(e.data); } catch { told = null; }
+    if (job && told && told.version === mine) return;
     sessionStorage.setItem(key, String(window.scrollY));
     es.close();
     location.reload();

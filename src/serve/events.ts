@@ -17,9 +17,11 @@ export class Events {
     this.beat.unref();
   }
 
-  listen(res: ServerResponse, job: string | null, headers: Record<string, string>): void {
+  /** `version`: the job's version now, told at once (a page that shows another reloads). */
+  listen(res: ServerResponse, job: string | null, headers: Record<string, string>, version?: number): void {
     res.writeHead(200, { ...headers, 'Content-Type': 'text/event-stream; charset=utf-8', 'Cache-Control': 'no-store', Connection: 'keep-alive' });
     res.write('retry: 500\n\n');
+    if (job !== null && version !== undefined) res.write(`event: reload\ndata: ${JSON.stringify({ job, version })}\n\n`);
     const l = { res, job };
     this.listeners.add(l);
     res.on('close', () => this.listeners.delete(l));

@@ -30,15 +30,21 @@ input[aria-invalid=true],select[aria-invalid=true]{border:2px solid #a3231f;back
 button{padding:.55em 1.1em;border-radius:3px;border:1px solid #0b4f8a;background:#0b4f8a;color:#fff;cursor:pointer}
 button.plain{background:#fff;color:#0b4f8a}
 .notice{background:#eef6ee;border:1px solid #7aa77a;padding:.5em .75em;border-radius:3px}
-@media (max-width:480px){body{padding:0 .6rem 3rem}.grid{grid-template-columns:1fr 1fr}}`;
+@media (max-width:480px){body{padding:0 .6rem 3rem}.grid{grid-template-columns:1fr 1fr}.hint{display:none}}`;
 
-/** A page; `reloadFor` a job's name (or null: any job) adds the script that reloads it when that job changes. */
-function page(title: string, nonce: string, body: Html, reloadFor?: string | null): string {
+/** What a page shows: a job's draft of some version, or every job (null); it reloads when that changes. */
+type Shows = { job: string | null; version: number };
+
+const reloadScript = (nonce: string, shows: Shows): Html =>
+  html`<script nonce="${nonce}" data-job="${shows.job ?? ''}" data-version="${shows.version}">${trusted(RELOAD_SCRIPT)}</script>`;
+
+/** A page; `shows` adds the script that reloads it when what it shows changes. */
+function page(title: string, nonce: string, body: Html, shows?: Shows): string {
   return html`<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${title}</title><style nonce="${nonce}">${trusted(CSS)}</style></head>
 <body>${body}
-${reloadFor === undefined ? '' : html`<script nonce="${nonce}" data-job="${reloadFor ?? ''}">${trusted(RELOAD_SCRIPT)}</script>`}
+${shows === undefined ? '' : reloadScript(nonce, shows)}
 </body></html>
 `.text;
 }
@@ -53,26 +59,27 @@ export function indexPage(jobs: LiveJob[], nonce: string, site: { archiveSite: b
 <p class="muted">Drafts are rendered again whenever a job's files are saved; open pages reload by themselves.</p>
 ${jobs.length ? html`<table><thead><tr><th>Job</th><th>Draft status</th><th>Open</th></tr></thead><tbody>${rows}</tbody></table>` : html`<p>No job folders (folders holding a project.yaml) here.</p>`}
 ${site.archiveSite ? html`<p><a href="/site/index.html">The archive site</a> (built drafts and issued revisions, as <code>packsmith build</code> left them)</p>` : ''}
-${site.archive ? html`<p><a href="/archive/">The archive folder</a> (issued revisions)</p>` : ''}`, null);
+${site.archive ? html`<p><a href="/archive/">The archive folder</a> (issued revisions)</p>` : ''}`, { job: null, version: 0 });
 }
 
 /** A bar on top of a served draft: not part of the pack, never printed. */
-function draftBar(job: LiveJob, nonce: string): string {
+function draftBar(job: LiveJob, nonce: string, saved: string | null): string {
   return html`<style nonce="${nonce}">.ps-serve{font:14px/1.4 "DejaVu Sans",sans-serif;display:flex;flex-wrap:wrap;gap:.3rem 1rem;padding:.5rem 1rem;background:#f1f4f6;border-bottom:1px solid #c9d0d6}@media print{.ps-serve{display:none}}</style>
-<nav class="ps-serve" aria-label="packsmith serve"><a href="/">All jobs</a><a href="${jobPath(job.name)}record">Record a test session</a><a href="${jobPath(job.name)}pack.pdf">PDF</a><span>Draft ${job.version}, rendered in ${Math.round(job.renderMs)} ms</span></nav>`.text;
+<nav class="ps-serve" aria-label="packsmith serve"><a href="/">All jobs</a><a href="${jobPath(job.name)}record">Record a test session</a><a href="${jobPath(job.name)}pack.pdf">PDF</a><span>Draft ${job.version}, rendered in ${Math.round(job.renderMs)} ms</span>${saved ? html`<strong role="status">Saved ${saved}</strong>` : ''}</nav>`.text;
 }
 
 /** Give every style element of a page the response's nonce. */
 export const nonceStyles = (text: string, nonce: string): string => text.replace(/<style(?=[\s>])/g, `<style nonce="${nonce}"`);
 
-export function draftPage(job: LiveJob, nonce: string): string {
+/** A job's draft as served; `saved` names the session file just saved from the form. */
+export function draftPage(job: LiveJob, nonce: string, saved: string | null = null): string {
   if (!job.draft) return errorsPage(job, nonce);
   // the pack's own policy (no script at all, for a file opened from disk) gives way to the response's, as strict but for the nonce
   let text = nonceStyles(job.draft.html, nonce).replace(/<meta http-equiv="Content-Security-Policy"[^>]*>/i, '');
   const open = /<body[^>]*>/.exec(text);
-  const bar = draftBar(job, nonce);
+  const bar = draftBar(job, nonce, saved);
   text = open ? text.slice(0, open.index + open[0].length) + bar + text.slice(open.index + open[0].length) : bar + text;
-  const script = `<script nonce="${nonce}" data-job="${html`${job.name}`.text}">${RELOAD_SCRIPT}</script>`;
+  const script = reloadScript(nonce, { job: job.name, version: job.version }).text;
   const close = text.lastIndexOf('</body>');
   return close >= 0 ? text.slice(0, close) + script + text.slice(close) : text + script;
 }
@@ -97,7 +104,7 @@ export function errorsPage(job: LiveJob, nonce: string): string {
   return page(`${job.name}: problems`, nonce, html`<div class="bar"><a href="/">All jobs</a></div>
 <h1>${job.title}</h1>
 <p class="bad" role="alert">${job.errors.length} problem${job.errors.length === 1 ? '' : 's'} in the job folder <code>${job.name}</code>: the draft is shown again once ${job.errors.length === 1 ? 'it is' : 'they are'} put right and saved.</p>
-<ol class="errors">${job.errors.map((e) => html`<li><code>${formatError(e)}</code>${sourceLine(job.files, e)}</li>`)}</ol>`, job.name);
+<ol class="errors">${job.errors.map((e) => html`<li><code>${formatError(e)}</code>${sourceLine(job.files, e)}</li>`)}</ol>`, { job: job.name, version: job.version });
 }
 
 /** The reading now in force for a field, as it would be typed, with its date. */
@@ -147,7 +154,7 @@ ${field('s-by', 'tested_by', 'Tested by', 'text', input.testedBy, result?.sessio
 </div>`;
   const form = html`<form id="session" method="post" action="${jobPath(job.name)}record" data-job="${job.name}" data-fresh="${state.fresh ? '1' : '0'}" novalidate>
 ${sessionFields}${boards}
-<div class="actions"><button type="submit">Save session</button><button type="button" class="plain" id="discard">Discard</button><span class="muted">Enter: next field · Ctrl+Enter: save</span></div>
+<div class="actions"><button type="submit">Save session</button><button type="button" class="plain" id="discard">Discard</button><span class="muted hint">Enter: next field · Ctrl+Enter: save</span></div>
 </form>`;
   const summary = result && (errorIds.length > 0 || result.job.length > 0)
     ? html`<div role="alert"><p class="bad">Not saved: ${errorIds.length + result.job.length} problem${errorIds.length + result.job.length === 1 ? '' : 's'}.</p>

@@ -170,7 +170,10 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
   };
 
   async function jobRoute(req: IncomingMessage, res: ServerResponse, job: LiveJob, rest: string, nonce: string): Promise<void> {
-    if (rest === '/' && req.method !== 'POST') return sendPage(req, res, 200, draftPage(job, nonce), nonce);
+    if (rest === '/' && req.method !== 'POST') {
+      const saved = new URL(req.url ?? '/', 'http://x').searchParams.get('saved');
+      return sendPage(req, res, 200, draftPage(job, nonce, saved && /^readings\/[\w.-]+\.csv$/.test(saved) ? saved : null), nonce);
+    }
     if (rest === '/pack.pdf' && req.method !== 'POST') {
       if (!job.draft) return sendPage(req, res, 409, errorsPage(job, nonce), nonce);
       try {
@@ -223,7 +226,7 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
     }
     if (path === '/events') {
       const job = url.searchParams.get('job');
-      return events.listen(res, job === null || job === '' ? null : job, BASE_HEADERS);
+      return events.listen(res, job === null || job === '' ? null : job, BASE_HEADERS, job ? jobs.get(job)?.version : undefined);
     }
     if (jobMatch) {
       let name: string;

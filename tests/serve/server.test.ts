@@ -83,9 +83,12 @@ describe('packsmith serve over HTTP', () => {
       });
       r.end();
     });
-    const reload = events.next();
+    const before = s.jobs.get('pack-job')!.version;
+    const told = async (): Promise<{ job: string; version: number }> => JSON.parse(/data: (.*)/.exec(await events.next())![1]!);
+    expect(await told()).toEqual({ job: 'pack-job', version: before }); // on connecting: the version now
+    const reload = told();
     edit(job, 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,9.9', 'DB-A,1,0.9,>999,>999,500,ok,0.73');
-    expect(await reload).toMatch(/"job":"pack-job"/);
+    expect(await reload).toEqual({ job: 'pack-job', version: before + 1 });
     events.close();
     expect((await call(s.port, '/job/pack-job/')).body).toContain('measured Zs 0.73 Ω');
   });
