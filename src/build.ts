@@ -12,14 +12,16 @@ import { progressLine, type ProgressStream } from './print/progress.js';
 import type { Paper } from './model/schema.js';
 import { packData, dataBytes } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
-import { inspectJob } from './archive/verify.js';
+import { inspectJob, type IssuedRevision } from './archive/verify.js';
 import { changesSince } from './archive/previous.js';
 import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { writeSite, type SiteSource } from './archive/site.js';
 import { jobArchiveSettings } from './archive/location.js';
 import { jobFolders } from './load/jobs.js';
-import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
+import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf, type PackStyle } from './produce.js';
+import type { Project } from './model/validate.js';
+import type { Assessment } from './calc/types.js';
 import { VERSION } from './version.js';
 
 export interface BuildOptions {
@@ -62,7 +64,17 @@ function lastTestDate(sessions: { date: string }[], fallback: string | undefined
 }
 
 /** The PDF's dates: the draft's date, or a fixed one when the job has no date at all (never the clock). */
-const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '1970-01-01');
+export const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '1970-01-01');
+
+/** A job's draft: labelled with its last test date, with the changes since its latest revision (`latest`). */
+export function draftPack(project: Project, assessment: Assessment, latest: IssuedRevision | null, style: PackStyle, log: (line: string) => void) {
+  const date = lastTestDate(project.sessions, project.file.dates.completed);
+  const label = { label: 'DRAFT', draft: true, date };
+  const data = dataBytes(packData(project, assessment, VERSION, null));
+  const since = changesSince(latest, JSON.parse(data), null);
+  if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
+  return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
+}
 
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
@@ -112,12 +124,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         progress.tick(project.name);
         continue;
       }
-      const date = lastTestDate(project.sessions, project.file.dates.completed);
-      const label = { label: 'DRAFT', draft: true, date };
-      const data = dataBytes(packData(project, assessment, VERSION, null));
-      const since = changesSince(latest, JSON.parse(data), null);
-      if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
-      const pack = packFiles(project, assessment, label, since.ok ? since.changes : null, style);
+      const { date, label, data, pack } = draftPack(project, assessment, latest, style, log);
 
       mkdirSync(target, { recursive: true });
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date

@@ -27,6 +27,9 @@ const USAGE = `usage:
   packsmith key create FILE                     a new Ed25519 key pair: FILE (private, mode 600) and FILE.pub
   packsmith archive move-from <out-dir> [jobs-folder] [--archive DIR]
                                                 move revisions an earlier packsmith issued into <out-dir>/<job>/rev-N/ into the archive
+  packsmith serve [folder] [--port N] [--host H] [--out DIR]
+                                                live drafts of every job in folder (default projects/), re-rendered on save, and a page
+                                                per job to record a test session; 127.0.0.1:4417 by default (another host needs the printed token)
 `;
 
 type Exit = 0 | 1 | 2;
@@ -96,6 +99,7 @@ async function main(argv: string[]): Promise<Exit> {
     case 'verify': return (await import('./commands/verify.js')).verifyCommand(rest);
     case 'key': return (await import('./commands/key.js')).keyCommand(rest);
     case 'archive': return (await import('./commands/archive.js')).archiveCommand(rest);
+    case 'serve': return (await import('./commands/serve.js')).serveCommand(rest);
     case undefined: case '-h': case '--help': case 'help':
       process.stdout.write(USAGE);
       return command === undefined ? 2 : 0;

@@ -6,7 +6,12 @@ import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
-const SESSION_NAME = /^(\d{4}-\d{2}-\d{2})(?:-([A-Za-z0-9][A-Za-z0-9_-]*))?\.csv$/;
+/** A readings file's name: its test date and an optional label. */
+export const SESSION_NAME = /^(\d{4}-\d{2}-\d{2})(?:-([A-Za-z0-9][A-Za-z0-9_-]*))?\.csv$/;
+
+/** The order of test sessions: by date; on one date, the unlabelled session first, then labels in name order. */
+export const sessionOrder = (a: { date: string; label: string }, b: { date: string; label: string }): number =>
+  a.date === b.date ? a.label.localeCompare(b.label) : a.date < b.date ? -1 : 1;
 
 const isDirectory = (p: string): boolean => existsSync(p) && statSync(p).isDirectory();
 
@@ -66,8 +71,7 @@ export function readJob(dir: string): RawJob {
       errors.push(...e);
       sessions.push({ date: m[1]!, label: m[2] ?? '', table });
     }
-    // Date order; on one date, the unlabelled session first, then labels in name order.
-    sessions.sort((a, b) => (a.date === b.date ? a.label.localeCompare(b.label) : a.date < b.date ? -1 : 1));
+    sessions.sort(sessionOrder);
     job.sessions = sessions;
   }
 
