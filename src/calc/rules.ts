@@ -60,9 +60,15 @@ export function requiredDisconnection(
   ratingA: number,
   rules: Rules,
   circuitOverride?: number,
+  /** the board this circuit feeds: a distribution circuit */
+  feeds?: string,
 ): RequiredTime {
   if (circuitOverride !== undefined) return { seconds: circuitOverride, basis: `${circuitOverride} s set for this circuit` };
   const tt = earthing === 'TT';
+  if (feeds !== undefined) {
+    const s = tt ? DISTRIBUTION_TT_S : DISTRIBUTION_TN_S;
+    return { seconds: s, basis: `${s} s: distribution circuit feeding ${feeds} (IEC 60364-4-41, 411.3.2.3/411.3.2.4)` };
+  }
   if (ratingA > rules.final_circuit_limit_a) {
     const s = tt ? DISTRIBUTION_TT_S : DISTRIBUTION_TN_S;
     return { seconds: s, basis: `${s} s: circuit above ${rules.final_circuit_limit_a} A (IEC 60364-4-41, 411.3.2.3/411.3.2.4)` };

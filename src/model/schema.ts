@@ -101,6 +101,8 @@ export const BoardSchema = z.strictObject({
   location: word('where the board is').optional(),
   zdb_ohm: quantity('ohm').optional(),
   pfc_ka: quantity('kiloampere').optional(),
+  /** the circuit that feeds this board, as BOARD/REF (a sub-main in circuits.csv); absent: fed from the origin */
+  fed_by: word('the feeding circuit as BOARD/REF, e.g. DB1/4').optional(),
 });
 
 export const PAPER = ['A4', 'Letter'] as const;

@@ -95,7 +95,13 @@ function tableRows<S extends z.ZodType>(
 /** A further rule on a valid circuit row (e.g. the calculation's tables), injected by the caller. */
 export type CircuitRule = (circuit: Circuit) => { field: string; message: string } | null;
 
-export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = []): Validation {
+/**
+ * A further rule on a valid project.yaml with the BOARD/REF keys of circuits.csv (e.g. the tree of
+ * boards), injected by the caller: each problem names the path of the project.yaml value it is about.
+ */
+export type ProjectRule = (file: ProjectFile, circuitKeys: ReadonlySet<string>) => { path: (string | number)[]; message: string }[];
+
+export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], projectRules: readonly ProjectRule[] = []): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
   errors.push(...yErrors);
@@ -165,6 +171,12 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
     }
     for (const { row, values } of tableRows(table, readingRowSchema(mapped.units), READING_COLUMNS, ['board', 'ref'], errors, MAP_HINT)) {
       if (!skip.has(row)) sessionRows.push({ date: s.date, file: table.file, row, values });
+    }
+  }
+
+  if (file && job.project && job.circuits) {
+    for (const rule of projectRules) {
+      for (const p of rule(file, known)) errors.push({ ...job.project.positionOf(p.path), message: p.message });
     }
   }
 

@@ -69,7 +69,7 @@ describe('measured Zs against 0.8 × max Zs (common practice)', () => {
 describe('the check registry', () => {
   it('lists every check id of CONTRACT.md once', () => {
     expect(CHECKS.map(([id]) => id)).toEqual(['overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic',
-      'breaking-capacity', 'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt']);
+      'breaking-capacity', 'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt', 'selectivity']);
   });
   it('passes no measured check of a circuit that has no readings', () => {
     const ctx = context({ ring: 'yes', rcd_ma: '30' }, {}, { ze_ohm: '0.3' });
