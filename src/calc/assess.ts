@@ -82,7 +82,7 @@ export function assess(project: Project): Assessment {
     const site = siteOf(circuit, sources, fed, project.circuits);
     const changed = (change: Partial<Circuit>) => circuitContext({ ...circuit, ...change }, board, file.supply, rules, readings, site);
     const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
-    const run = longestRun((l) => changed({ length_m: l }));
+    const run = longestRun((l) => changed({ length_m: l }), circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;

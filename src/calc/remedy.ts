@@ -84,7 +84,7 @@ export function remedy(id: string, check: Check, ctx: CircuitContext, changed: C
   if (tried.length === 0 && !BY_LENGTH.has(id)) return null;
   const options: string[] = [];
   if (BY_LENGTH.has(id)) {
-    const run = longestRun((l) => changed({ length_m: l }), [check]);
+    const run = longestRun((l) => changed({ length_m: l }), ctx.circuit.length_m, [check]);
     if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${fmt(run.length_m)} m (now ${fmt(ctx.circuit.length_m)} m)`);
   }
   const other = tried.find((k) => check(changed(k.change)).status === 'pass');
