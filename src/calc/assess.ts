@@ -22,6 +22,25 @@ import { STATUSES, type CheckResult, type Assessment, type CircuitAssessment, ty
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
 
+/** The parts of a circuit's context that its length changes: design table, drop from the origin, design fault. */
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined) {
+  const device = { code: circuit.device, rating_a: circuit.rating_a };
+  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
+  const vdOrigin = originDrop(design.vd, site?.source);
+  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
+  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd });
+  return { design, vdOrigin, fault };
+}
+
+/**
+ * The circuit's context with another length: only what the length changes is worked again (the
+ * required time and max Zs do not depend on it). For the longest run and what would pass.
+ */
+export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
+  const circuit = { ...ctx.circuit, length_m: lengthM };
+  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site) };
+}
+
 /** Everything the checks need to know about one circuit: its design table and its readings. */
 export function circuitContext(
   circuit: Circuit & { row: number }, given: Board, supply: Supply, rules: Rules, readings: CircuitReadings, site?: CircuitSite,
@@ -30,11 +49,8 @@ export function circuitContext(
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
   const board = site ? boardAsSeen(given, site.source) : given;
-  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
-  const vdOrigin = originDrop(design.vd, site?.source);
+  const { design, vdOrigin, fault } = designed(circuit, board, supply, rules, site);
   const pfcKa = board.pfc_ka ?? supply.pfc_ka;
-  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
-  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd });
   const energy = fault.known && fault.time_s !== null && fault.time_s <= ADIABATIC_LIMIT_S ? fault.energy : null;
   const cpcMin = energy ? Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k : null;
   return {
@@ -82,7 +98,7 @@ export function assess(project: Project): Assessment {
     const site = siteOf(circuit, sources, fed, project.circuits);
     const changed = (change: Partial<Circuit>) => circuitContext({ ...circuit, ...change }, board, file.supply, rules, readings, site);
     const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
-    const run = longestRun((l) => changed({ length_m: l }), circuit.length_m);
+    const run = longestRun((l) => atLength(ctx, l), circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
@@ -93,10 +109,17 @@ export function assess(project: Project): Assessment {
       derived: ctx.derived,
       checks: CHECKS.map(([id, check]) => {
         const r = traced(check, asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, ctx, changed) : null;
+        const fix = REMEDIED.has(id) ? remedy(id, check, ctx, changed, (l) => atLength(ctx, l)) : null;
         const withFix = fix ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),
+      ...(site.feeds ? {
+        feeds: {
+          board: site.feeds.board,
+          largest: site.feeds.largest,
+          fault_current_a: site.feeds.source.pfc.used === null ? null : significant(site.feeds.source.pfc.used * 1000),
+        },
+      } : {}),
     };
   });
   return { job: project.name, rules, boards: [...sources.values()], circuits, summary: summarise(circuits) };

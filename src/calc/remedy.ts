@@ -78,13 +78,13 @@ function candidates(id: string, ctx: CircuitContext): Candidate[] {
 const BY_LENGTH = new Set(['voltage-drop', 'zs-design', 'disconnection']);
 
 /** One plain line: what would make the failing check pass, or null where the check did not fail or is not a design check. */
-export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed): string | null {
+export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed, atLength: (lengthM: number) => CircuitContext): string | null {
   if (check(ctx).status !== 'fail') return null;
   const tried = candidates(id, ctx);
   if (tried.length === 0 && !BY_LENGTH.has(id)) return null;
   const options: string[] = [];
   if (BY_LENGTH.has(id)) {
-    const run = longestRun((l) => changed({ length_m: l }), ctx.circuit.length_m, [check]);
+    const run = longestRun(atLength, ctx.circuit.length_m, [check]);
     if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${fmt(run.length_m)} m (now ${fmt(ctx.circuit.length_m)} m)`);
   }
   const other = tried.find((k) => check(changed(k.change)).status === 'pass');

@@ -7,6 +7,7 @@ import type { Design } from './design/index.js';
 import type { DesignFault } from './design/fault.js';
 import type { BoardSource, VdLeg } from './tree/carry.js';
 import type { CircuitSite } from './tree/site.js';
+import type { DeviceCode } from '../reference/device-codes.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
 export type Status = (typeof STATUSES)[number];
@@ -88,6 +89,8 @@ export interface CircuitAssessment {
   description: string;
   derived: Derived;
   checks: CheckResult[];
+  /** a circuit that feeds a board: the board, its largest device and the fault current there (for selectivity) */
+  feeds?: { board: string; largest: { ref: string; code: DeviceCode; rating_a: number } | null; fault_current_a: number | null };
 }
 
 export type Summary = Record<Status, number>;
