@@ -39,7 +39,7 @@ function check(args: string[]): Exit {
   const a = job.assessment;
   if (values.json) {
     const { overrides, ...rules } = a.rules;
-    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, ...(a.boards ? { boards: a.boards.map(boardJson) } : {}), circuits: a.circuits, summary: a.summary }, null, 2)}\n`);
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, ...(a.boards ? { boards: a.boards.map(boardJson) } : {}), circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
   } else {
     process.stdout.write(assessmentText(a));
   }

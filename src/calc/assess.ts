@@ -3,13 +3,16 @@ import type { Project } from '../model/validate.js';
 import type { Board, Circuit, Supply } from '../model/schema.js';
 import { circuitKey, type CircuitReadings } from '../model/readings.js';
 import { significant } from '../model/units.js';
-import { maxZs, measuredFault } from './devices/index.js';
+import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
+import { minimumFaultEnergy } from './checks/adiabatic.js';
 import { design as designOf } from './design/index.js';
 import { designFault } from './design/fault.js';
-import { ADIABATIC_LIMIT_S, kFor } from './design/k-factor.js';
+import { kFor } from './design/k-factor.js';
+import { breakingLevel } from './fault-level.js';
 import { stages, traced } from './history.js';
 import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
+import { circuitDeparture, ruleDepartures, strictRules, type Departure } from './departures.js';
 import { boardAsSeen, designSource, siteOf, type CircuitSite } from './tree/site.js';
 import { originDrop } from './tree/origin.js';
 import { carry } from './tree/carry.js';
@@ -18,17 +21,21 @@ import { boardQuery, type BoardQuery } from './tree/query.js';
 import { longestRun } from './design/max-length.js';
 import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
-import { STATUSES, type CheckResult, type Assessment, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
+import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
 
-/** The parts of a circuit's context that its length changes: design table, drop from the origin, design fault. */
-function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined) {
+/**
+ * The parts of a circuit's context that its length changes: the design table, the drop from the
+ * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
+ */
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number) {
   const device = { code: circuit.device, rating_a: circuit.rating_a };
+  const maker = makerIa(device, requiredS, circuit.device_ia_a);
   const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
   const vdOrigin = originDrop(design.vd, site?.source);
   const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
-  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd });
+  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
   return { design, vdOrigin, fault };
 }
 
@@ -38,22 +45,23 @@ function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, 
  */
 export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
   const circuit = { ...ctx.circuit, length_m: lengthM };
-  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site) };
+  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s) };
 }
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
 export function circuitContext(
   circuit: Circuit & { row: number }, given: Board, supply: Supply, rules: Rules, readings: CircuitReadings, site?: CircuitSite,
 ): CircuitContext {
-  const required = requiredDisconnection(supply.earthing, rules.u0_v, circuit.rating_a, rules, circuit.disconnect_s, site?.feeds?.board);
+  const required = requiredDisconnection(supply.earthing, rules.u0_v, circuit, rules, site?.feeds?.board);
   const device = { code: circuit.device, rating_a: circuit.rating_a };
-  const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin);
+  const maker = makerIa(device, required.seconds, circuit.device_ia_a);
+  const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin)
+    ?? (maker ? { ia_a: maker.ia_a, max_zs_ohm: (rules.u0_v * rules.cmin) / maker.ia_a, basis: maker.basis } : null);
   const board = site ? boardAsSeen(given, site.source) : given;
-  const { design, vdOrigin, fault } = designed(circuit, board, supply, rules, site);
+  const { design, vdOrigin, fault } = designed(circuit, board, supply, rules, site, required.seconds);
   const pfcKa = board.pfc_ka ?? supply.pfc_ka;
-  const energy = fault.known && fault.time_s !== null && fault.time_s <= ADIABATIC_LIMIT_S ? fault.energy : null;
-  const cpcMin = energy ? Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k : null;
-  return {
+  const level = breakingLevel(circuit, board, supply);
+  const ctx: CircuitContext = {
     circuit,
     board,
     supply,
@@ -65,11 +73,11 @@ export function circuitContext(
       r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
       zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
       vd_percent: design.vd ? round(design.vd.percent, 2) : null,
-      cpc_min_mm2: cpcMin === null ? null : round(cpcMin, 2),
+      cpc_min_mm2: null,
       required_disconnect_s: required.seconds,
+      fault_current_max_a: level ? significant(level.amps) : null,
       zdb_ohm: design.source ? round(design.source.ohm, 3) : null,
       pfc_ka: pfcKa === undefined ? null : round(pfcKa, 3),
-      fault_current_max_a: pfcKa === undefined ? null : significant(pfcKa * 1000),
       vd_origin_percent: vdOrigin ? round(vdOrigin.percent, 2) : null,
       // the design fault where a design Zs is known, else the one a measured Zs gives
       ...(fault.known
@@ -83,23 +91,47 @@ export function circuitContext(
     requiredBasis: required.basis,
     maxZsBasis: mz
       ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
-      : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s`,
+      : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s, and circuits.csv gives no device_ia_a from its maker`,
+  };
+  const energy = minimumFaultEnergy(ctx);
+  ctx.derived.cpc_min_mm2 = energy ? round(Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k, 2) : null;
+  return ctx;
+}
+
+/**
+ * A check under departures: where it passes only because of a rule value less strict than the
+ * set's own (it does not pass under the strict rules), it is `attention`, saying so.
+ */
+export function withoutDepartures(check: Check, strict: CircuitContext, departures: readonly Departure[]): Check {
+  return (ctx) => {
+    const r = check(ctx);
+    if (r.status !== 'pass' || departures.length === 0) return r;
+    const s = check({ ...strict, readings: ctx.readings });
+    if (s.status === 'pass') return r;
+    return { ...r, status: 'attention', basis: `${r.basis}; passes only by a departure (${departures.map((d) => d.basis).join('; ')}): under the rule set's own values it is ${s.status} (${s.basis})` };
   };
 }
 
 export function assess(project: Project): Assessment {
   const { file } = project;
-  const rules = resolveRules(file.supply, file.rules);
+  const rules = resolveRules(file.supply, file.rules, file.premises);
+  const strict = strictRules(rules);
+  const departures = ruleDepartures(rules, project.circuits);
   const sources = carry(file.boards, project.circuits, file.supply, rules.u0_v);
   const fed = fedBoards(file.boards);
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
     const board = file.boards.find((b) => b.id === circuit.board)!;
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
     const site = siteOf(circuit, sources, fed, project.circuits);
-    const changed = (change: Partial<Circuit>) => circuitContext({ ...circuit, ...change }, board, file.supply, rules, readings, site);
     const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
-    const run = longestRun((l) => atLength(ctx, l), circuit.length_m);
-    ctx.derived.max_length_m = run.length_m;
+    const own = circuitDeparture(circuit, requiredDisconnection(file.supply.earthing, strict.u0_v, { ...circuit, disconnect_s: undefined }, strict, site.feeds?.board).seconds);
+    if (own) departures.push(own);
+    const bearing = [...departures.filter((d) => d.rule !== 'disconnect_s' && d.circuits.includes(`${circuit.board}/${circuit.ref}`)), ...(own ? [own] : [])];
+    const strictCircuit = own ? { ...circuit, disconnect_s: undefined } : circuit;
+    const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
+    // the longest run and what would pass are found under the rule set's own values
+    const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
+    ctx.derived.max_length_m = longestRun((l) => atLength(strictCtx, l), circuit.length_m).length_m;
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
     return {
@@ -107,10 +139,10 @@ export function assess(project: Project): Assessment {
       ref: circuit.ref,
       description: circuit.description,
       derived: ctx.derived,
-      checks: CHECKS.map(([id, check]) => {
-        const r = traced(check, asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, ctx, changed, (l) => atLength(ctx, l)) : null;
-        const withFix = fix ? { ...r, remedy: fix } : r;
+      checks: CHECKS.map(([id, check]): CheckResult => {
+        const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
+        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, (l) => atLength(strictCtx, l)) : null;
+        const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),
       ...(site.feeds ? {
@@ -122,7 +154,7 @@ export function assess(project: Project): Assessment {
       } : {}),
     };
   });
-  return { job: project.name, rules, boards: [...sources.values()], circuits, summary: summarise(circuits) };
+  return { job: project.name, rules, boards: [...sources.values()], circuits, summary: summarise(circuits), departures };
 }
 
 /** The failing design checks that say what would pass. */

@@ -8,6 +8,7 @@ import type { DesignFault } from './design/fault.js';
 import type { BoardSource, VdLeg } from './tree/carry.js';
 import type { CircuitSite } from './tree/site.js';
 import type { DeviceCode } from '../reference/device-codes.js';
+import type { Departure } from './departures.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
 export type Status = (typeof STATUSES)[number];
@@ -15,7 +16,7 @@ export type Status = (typeof STATUSES)[number];
 export const CHECK_IDS = [
   'overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity',
   'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt',
-  'selectivity',
+  'additional-protection', 'cpc-size', 'selectivity',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 
@@ -102,4 +103,6 @@ export interface Assessment {
   boards?: BoardSource[];
   circuits: CircuitAssessment[];
   summary: Summary;
+  /** rule values less strict than the rule set's own, each with the circuits it affects */
+  departures: Departure[];
 }
