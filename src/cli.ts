@@ -1,5 +1,6 @@
 #!/usr/bin/env node
 // The command line: parse arguments, call the stages, print, set exit codes (CONTRACT.md).
+import { boardJson } from './calc/tree/json.js';
 import { parseArgs } from 'node:util';
 import { loadJob } from './job.js';
 import { formatError } from './load/raw.js';
@@ -50,7 +51,7 @@ function check(args: string[]): Exit {
   const a = job.assessment;
   if (values.json) {
     const { overrides, ...rules } = a.rules;
-    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, ...(a.boards ? { boards: a.boards.map(boardJson) } : {}), circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
   } else {
     process.stdout.write(assessmentText(a));
   }

@@ -125,6 +125,8 @@ export const BoardSchema = z.strictObject({
   pfc_ka: quantity('kiloampere').optional(),
   /** three-phase prospective fault current at the board, where measured or given */
   pfc_3ph_ka: quantity('kiloampere').optional(),
+  /** the circuit that feeds this board, as BOARD/REF (a sub-main in circuits.csv); absent: fed from the origin */
+  fed_by: word('the feeding circuit as BOARD/REF, e.g. DB1/4').optional(),
 });
 
 export const PREMISES = ['dwelling', 'other'] as const;

@@ -103,7 +103,13 @@ export interface ValidateOptions {
   today?: string;
 }
 
-export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], opts: ValidateOptions = {}): Validation {
+/**
+ * A further rule on a valid project.yaml with the BOARD/REF keys of circuits.csv (e.g. the tree of
+ * boards), injected by the caller: each problem names the path of the project.yaml value it is about.
+ */
+export type ProjectRule = (file: ProjectFile, circuitKeys: ReadonlySet<string>) => { path: (string | number)[]; message: string }[];
+
+export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], projectRules: readonly ProjectRule[] = [], opts: ValidateOptions = {}): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
   errors.push(...yErrors);
@@ -176,6 +182,12 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [],
     }
     for (const { row, values } of tableRows(table, readingRowSchema(mapped.units), READING_COLUMNS, ['board', 'ref'], errors, MAP_HINT)) {
       if (!skip.has(row)) sessionRows.push({ date: s.date, file: table.file, row, values });
+    }
+  }
+
+  if (file && job.project && job.circuits) {
+    for (const rule of projectRules) {
+      for (const p of rule(file, known)) errors.push({ ...job.project.positionOf(p.path), message: p.message });
     }
   }
 

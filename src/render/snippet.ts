@@ -11,6 +11,8 @@ export interface CurveSnippetOptions {
   faultCurrentA?: number | null;
   requiredS?: number | null;
   title?: string;
+  /** a second device (the largest downstream of a feeding circuit), its band drawn hatched, and the current selectivity is judged up to */
+  downstream?: { device: Device; label: string; uptoA: number | null };
 }
 
 const WIDTH = 360;
@@ -88,6 +90,25 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     desc.push(`The device library holds no published time-current points for ${name}.`);
   }
 
+  const down = opts.downstream ? characteristic(opts.downstream.device) : null;
+  const hatch = `ps-hatch-${title.replace(/[^A-Za-z0-9]+/g, '-')}`;
+  if (opts.downstream && down) {
+    const slow = edgePath(down.slowest);
+    if (down.fastest) {
+      const fast = edgePath(down.fastest);
+      const [fl, tl] = fast[fast.length - 1]!;
+      plot.push(`<polygon class="band2" fill="url(#${hatch})" points="${toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()])}"/>`);
+    }
+    plot.push(`<polyline class="slowest2" points="${toXY(slow)}"/>`);
+    desc.push(`The hatched band is ${opts.downstream.label} (${down.source}), the largest device on the board this circuit feeds.`);
+    const upto = opts.downstream.uptoA;
+    if (upto !== null && upto >= I_MIN && upto <= I_MAX) {
+      plot.push(`<line class="upto" x1="${c(x(upto))}" y1="0.0" x2="${c(x(upto))}" y2="${c(PH)}"/>`);
+      over.push(`<text class="note" x="${c(x(upto) - 3)}" y="${c(PH - 4)}" text-anchor="end">${escape(`${fmt(upto)} A at the fed board`)}</text>`);
+      desc.push(`The dotted line is the prospective fault current at that board, ${fmt(upto)} A: selectivity is judged up to it.`);
+    }
+  }
+
   const required = opts.requiredS ?? null;
   if (required !== null && required >= T_MIN && required <= T_MAX) {
     const yr = c(y(required));
@@ -121,7 +142,10 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
       + '.slowest{fill:none;stroke:#1d3f66;stroke-width:1.5}.fastest{fill:none;stroke:#1d3f66;stroke-width:0.75}'
       + '.required{stroke:#a33;stroke-width:1;stroke-dasharray:4 3}.fault{stroke:#333;stroke-width:0.75;stroke-dasharray:1 2}'
-      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}</style>',
+      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}'
+      + (opts.downstream ? '.band2{stroke:none}.slowest2{fill:none;stroke:#6a4a00;stroke-width:1.2;stroke-dasharray:5 2}.upto{stroke:#6a4a00;stroke-width:0.75;stroke-dasharray:1 2}' : '')
+      + '</style>',
+    ...(opts.downstream ? [`<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`] : []),
     `<g transform="translate(${M.left},${M.top})">`,
     ...grid(),
     `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,

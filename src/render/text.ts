@@ -12,6 +12,7 @@ export function assessmentText(a: Assessment): string {
       lines.push(`  ${look.symbol} ${look.word.padEnd(12)} ${k.id.padEnd(17)} ${k.basis}`);
       const trace = historyLine(k);
       if (trace) lines.push(`${' '.repeat(34)}${trace}`);
+      if (k.remedy) lines.push(`${' '.repeat(34)}${k.remedy}`);
     }
   }
   for (const d of a.departures) lines.push('', `departure: ${d.basis}; circuits affected: ${d.circuits.join(', ')}`);

@@ -72,7 +72,7 @@ export interface ThemeAssets {
 /** The values calc derives for each circuit (CONTRACT.md), in the schedule's order. */
 export const DERIVED_FIELDS = [
   'iz_a', 'max_zs_ohm', 'zs_design_ohm', 'fault_current_a', 'disconnect_s', 'required_disconnect_s',
-  'vd_percent', 'cpc_min_mm2', 'r1r2_expected_ohm',
+  'vd_percent', 'cpc_min_mm2', 'r1r2_expected_ohm', 'zdb_ohm', 'vd_origin_percent', 'max_length_m',
 ] as const;
 
 /** Each recorded reading: how the pack names it, and the check that judges it. */
@@ -181,7 +181,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
   const unverified: { board: string; ref: string; description: string; anchor: string }[] = [];
   const circuitOverrides: string[] = [];
   const byCircuit = new Map(assessment.circuits.map((c) => [circuitKey(c.board, c.ref), c]));
-  const checkView = (k: CheckResult) => ({ id: k.id, basis: k.basis, date: k.date ?? null, history: historyLine(k), look: look(k.status) });
+  const checkView = (k: CheckResult) => ({ id: k.id, basis: k.basis, date: k.date ?? null, history: historyLine(k), remedy: k.remedy ?? null, look: look(k.status) });
 
   const boards = f.boards.map((b) => ({
     id: b.id,
@@ -189,6 +189,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     anchor: anchor('board', b.id),
     zdb_ohm: b.zdb_ohm ?? null,
     pfc_ka: b.pfc_ka ?? null,
+    tree: treeView(b.id, assessment, anchor),
     circuits: project.circuits.filter((c) => c.board === b.id).map((c) => {
       const key = circuitKey(c.board, c.ref);
       const a = byCircuit.get(key)!;
@@ -204,7 +205,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
       if (a.checks.some((k) => k.status === 'not-verified')) unverified.push(who);
       if (c.disconnect_s !== undefined) circuitOverrides.push(`${c.board} ${c.ref}: required disconnection time ${fmt(c.disconnect_s)} s set in circuits.csv`);
       const derived = Object.fromEntries(DERIVED_FIELDS.map((k) => [k, typeof a.derived[k] === 'number' ? a.derived[k] : null])) as Record<(typeof DERIVED_FIELDS)[number], number | null>;
-      const snippet = snippetRequest(c, a.derived, readings, assessment.rules);
+      const snippet = snippetRequest(c, a.derived, readings, assessment.rules, a.feeds);
       return {
         ref: c.ref,
         description: c.description,
@@ -281,6 +282,22 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     safety: { slow, unverified },
     keyFingerprint: opts.keyFingerprint ?? null,
     signoff: [signer('Designer', f.signoff.designer), signer('Installer', f.signoff.installer), signer('Inspector', f.signoff.inspector)],
+  };
+}
+
+/** A board in the tree: what feeds it, what it feeds, Zdb and fault current derived and measured side by side, the drop from the origin. */
+function treeView(id: string, assessment: Assessment, anchorOf: (...parts: string[]) => string) {
+  const all = assessment.boards ?? [];
+  const s = all.find((b) => b.board === id);
+  if (!s) return null;
+  const round = (v: number | null, places: number) => (v === null ? null : Number(v.toFixed(places)));
+  return {
+    fedBy: s.feed ? { board: s.feed.board, ref: s.feed.ref, anchor: anchorOf('circuit', s.feed.board, s.feed.ref), boardAnchor: anchorOf('board', s.feed.board) } : null,
+    feeds: all.filter((b) => b.feed?.board === id).map((b) => ({ board: b.board, ref: b.feed!.ref, anchor: anchorOf('board', b.board) })),
+    zdb: { derived: round(s.zdb.derived, 3), measured: s.zdb.measured, design: round(s.zdb.design, 3), basis: s.zdb.basis },
+    pfc: { derived: round(s.pfc.derived, 3), measured: s.pfc.measured, basis: s.pfc.basis },
+    vd: round(s.vd.percent, 2),
+    legs: s.vd.legs.map((l) => ({ circuit: l.circuit, percent: round(l.percent, 2) })),
   };
 }
 

@@ -1,6 +1,7 @@
 // The live drafts: every job of the served folder, loaded, validated, assessed and rendered in
 // memory; rendered again when its files change. The PDF is printed only when asked for, from the
 // draft of that moment, so printing never holds up the preview.
+import { today } from '../commands/today.js';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, resolve } from 'node:path';
@@ -119,7 +120,7 @@ export class LiveJobs {
     const job = this.jobs.get(name);
     if (!job) return false;
     const t0 = performance.now();
-    const loaded = loadJob(job.dir);
+    const loaded = loadJob(job.dir, { today: today() });
     const inputHash = combinedHash(fileHashes(loaded.raw.files));
     if (inputHash === job.inputHash && job.version > 0) return false;
     job.inputHash = inputHash;

@@ -10,7 +10,8 @@ import { validate } from '../model/validate.js';
 import { circuitKey } from '../model/readings.js';
 import { READING_COLUMNS, type ReadingField } from '../model/schema.js';
 import type { Circuit } from '../model/schema.js';
-import { CALC_RULES } from '../calc/inputs.js';
+import { CALC_RULES, PROJECT_RULES } from '../calc/inputs.js';
+import { today } from '../commands/today.js';
 import { fsyncDir, workingName, writeNew } from '../archive/files.js';
 
 export interface Field {
@@ -138,7 +139,7 @@ export function saveSession(jobDir: string, input: SessionInput): SaveResult {
   const { table, errors: csvErrors } = readCsv(rel, text);
   raw.errors.push(...csvErrors);
   raw.sessions = [...raw.sessions, { date, label, table }].sort(sessionOrder);
-  const v = validate(raw, CALC_RULES);
+  const v = validate(raw, CALC_RULES, PROJECT_RULES, { today: today() });
   if (!v.ok) {
     const job: LocatedError[] = [];
     for (const e of v.errors) {
