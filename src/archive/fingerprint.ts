@@ -25,6 +25,9 @@ const StampSchema = z.object({
   format: z.literal('packsmith-build/1'),
   fingerprint: FingerprintSchema,
   title: z.string(),
+  /** the client and site address, for the archive site (absent in stamps of older builds) */
+  client: z.string().optional(),
+  site: z.string().optional(),
   date: z.string(),
   summary: SummarySchema,
   outputs: z.record(z.string(), z.string()),

@@ -2,6 +2,7 @@
 // in its creation and modification dates, so both are set to the pack's date and the producer
 // fields are fixed; title, author (the firm) and subject (the job) are set, and data.json rides
 // along as an embedded file.
+import { dayOf } from '../model/dates.js';
 
 export interface PdfMetadata {
   title: string;
@@ -15,13 +16,6 @@ export interface PdfMetadata {
   producer: string;
   creator: string;
   attachments: { name: string; bytes: Uint8Array; mimeType: string; description: string }[];
-}
-
-/** Midnight UTC of a YYYY-MM-DD date: a fixed instant, whatever the machine's time zone. */
-export function dayOf(date: string): Date {
-  const d = new Date(`${date}T00:00:00Z`);
-  if (Number.isNaN(d.getTime())) throw new Error(`not a date: "${date}" (expected YYYY-MM-DD)`);
-  return d;
 }
 
 export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {

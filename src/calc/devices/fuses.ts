@@ -63,7 +63,7 @@ export function bs88Part2Characteristic(ratingA: number): Characteristic | null 
 }
 
 export function bs88Part3Characteristic(ratingA: number): Characteristic | null {
-  const published = (BS88_3_POINTS[ratingA] ?? []).map((p) => ({ ...p, source: 'BS 7671 Table 41.2 (REFERENCE.md)' }));
+  const published = (BS88_3_POINTS[ratingA] ?? []).map((p) => ({ ...p, source: 'BS 7671 Table 41.2' }));
   return ggCharacteristic(ratingA, published, 'BS 88-3');
 }
 
