@@ -40,7 +40,7 @@ function check(args: string[]): Exit {
   const a = job.assessment;
   if (values.json) {
     const { overrides, ...rules } = a.rules;
-    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary }, null, 2)}\n`);
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
   } else {
     process.stdout.write(assessmentText(a, { explain: values.explain ?? false, width: Math.max(60, Math.min(process.stdout.columns ?? 100, 120)) }));
   }

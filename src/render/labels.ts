@@ -151,6 +151,8 @@ export const JOB_LABELS: Record<string, Label> = {
   'rules.vd_lighting_percent': { label: 'Voltage drop limit, lighting', unit: '%' },
   'rules.vd_other_percent': { label: 'Voltage drop limit, other uses', unit: '%' },
   'rules.final_circuit_limit_a': { label: 'Largest final circuit with the final-circuit time', unit: 'A' },
+  'rules.final_socket_limit_a': { label: 'Largest socket-outlet final circuit with the final-circuit time', unit: 'A' },
+  'rules.final_fixed_limit_a': { label: 'Largest fixed-equipment final circuit with the final-circuit time', unit: 'A' },
   'rules.r1r2_tolerance_percent': { label: 'R1+R2 tolerance', unit: '%' },
   'rules.r1r2_tolerance_ohm': { label: 'R1+R2 tolerance', unit: 'Ω' },
   'boards.id': { label: 'Board' },

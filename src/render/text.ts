@@ -55,7 +55,7 @@ function checkBlock(k: CheckResult, width: number, indent: number): string[] {
 export function assessmentText(a: Assessment, opts: TextOptions = {}): string {
   const width = opts.width ?? 100;
   const lines: string[] = [];
-  lines.push(`${a.job}: rule set ${a.rules.set}, U0 ${a.rules.u0_v} V, Cmin ${a.rules.cmin}, measured Zs factor ${a.rules.measured_zs_factor}`);
+  lines.push(`${a.job}: rule set ${a.rules.set_name} (${a.rules.set}), premises ${a.rules.premises}, U0 ${a.rules.u0_v} V, Cmin ${a.rules.cmin}, measured Zs factor ${a.rules.measured_zs_factor}`);
   if (opts.explain) {
     for (const c of a.circuits) {
       lines.push('', `${where(c)}  ${c.description}`);
@@ -78,6 +78,7 @@ export function assessmentText(a: Assessment, opts: TextOptions = {}): string {
       }
     }
   }
+  for (const d of a.departures) lines.push('', ...wrap(`departure: ${plainWords(d.basis)}; circuits affected: ${d.circuits.join(', ')}`, width, '    '));
   const s = a.summary;
   lines.push('', `summary: ${s.pass} pass, ${s.fail} fail, ${s.attention} attention, ${s['not-verified']} not verified, ${s['n/a']} n/a`);
   if (!opts.explain) lines.push('the working of every check: packsmith check <job-folder> --explain');

@@ -14,7 +14,7 @@ import { openItemsAndSafety } from './sections/summary.js';
 import { rulesView } from './sections/rules.js';
 import { changesView, type Changes } from './sections/changes.js';
 import { signoffView } from './sections/signoff.js';
-import { READING_LABELS } from './labels.js';
+import { plainWords, READING_LABELS } from './labels.js';
 
 export { STATUS_LOOK, worstStatus, overallStatus, SEVERITY } from './status.js';
 export { historyLine, showReading } from './values.js';
@@ -75,6 +75,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     overall: look(overallStatus(assessment)),
     summary: (Object.keys(STATUS_LOOK) as Status[]).map((s) => ({ count: assessment.summary[s], look: look(s) })),
     openItems,
+    departures: assessment.departures.map((d) => ({ basis: plainWords(d.basis), circuits: d.circuits.join(', ') })),
     boards: boardSchedules(project, byCircuit),
     resultHeads: resultHeads(),
     appendix: appendixBoards(project, assessment, byCircuit),
