@@ -146,6 +146,7 @@ export const JOB_LABELS: Record<string, Label> = {
   'supply.ra_ohm': { label: 'Earth electrode resistance RA', unit: 'Ω' },
   'supply.main_switch': { label: 'Main switch' },
   'rules.set': { label: 'Rule set' },
+  'rules.devices': { label: 'Device data given for this job' },
   'rules.cmin': { label: 'Voltage factor Cmin' },
   'rules.measured_zs_factor': { label: 'Factor on max Zs for measured Zs' },
   'rules.vd_lighting_percent': { label: 'Voltage drop limit, lighting', unit: '%' },
@@ -214,7 +215,15 @@ export const STATUS_WORDS: Record<Status, string> = {
 };
 
 const INTERNAL_FILES = /\s*\((?:see |from )?REFERENCE\.md\)|\s*REFERENCE\.md/g;
-const FIELD_ID = /\b(?:(?:supply|rules|boards|client|site|installer|dates|signoff)\.)?[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g;
+/** The job's own files, named where a reader needs no file name. */
+const JOB_FILES: [RegExp, string][] = [
+  [/\b(?:set )?in project\.yaml\b/g, 'set for this job'],
+  [/\b(?:set )?in circuits\.csv\b/g, 'set for the circuit'],
+  [/\bcircuits\.csv gives\b/g, 'the circuit gives'],
+  [/\bproject\.yaml\b/g, 'the job'],
+  [/\bcircuits\.csv\b/g, 'the circuit list'],
+];
+const FIELD_ID = /\b(?:(?:supply|rules|boards|client|site|installer|dates|signoff)\.[a-z][a-z0-9_]*|[a-z][a-z0-9]*(?:_[a-z0-9]+)+)\b/g;
 
 /**
  * Text written for engineers (a check's basis) in the reader's words: project-internal file names
@@ -222,7 +231,8 @@ const FIELD_ID = /\b(?:(?:supply|rules|boards|client|site|installer|dates|signof
  * the device not given").
  */
 export function plainWords(text: string): string {
-  return text.replace(INTERNAL_FILES, '').replace(FIELD_ID, (id) => {
+  const named = JOB_FILES.reduce((t, [file, words]) => t.replace(file, words), text.replace(INTERNAL_FILES, ''));
+  return named.replace(FIELD_ID, (id) => {
     const known = id.includes('.') ? JOB_LABELS[id] : (READING_LABELS[id] ?? CIRCUIT_LABELS[id] ?? DERIVED_LABELS[id]);
     return known ? lower(known.label) : id;
   });
