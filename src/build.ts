@@ -133,7 +133,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
       result.built.push(built);
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, date, summary: assessment.summary, outputs }));
+      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address, date, summary: assessment.summary, outputs }));
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {

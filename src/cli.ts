@@ -15,7 +15,9 @@ const USAGE = `usage:
   packsmith build [job-folder...] [--out DIR] [--force] [--theme DIR] [--paper A4|Letter] [--archive DIR]
                                                 render draft packs (HTML and PDF) into DIR (default out/); unchanged jobs are
                                                 skipped unless --force; --theme: a firm's folder of templates, partials, stylesheet, logo
-  packsmith check <job-folder> [--json]         validate and assess one job; exit 0 all passed, 1 open items, 2 invalid input
+  packsmith check <job-folder> [--json] [--explain]
+                                                validate and assess one job: a line per circuit and every open item in full
+                                                (--explain: the working of every check); exit 0 all passed, 1 open items, 2 invalid input
   packsmith device <code> <rating> [--at AMPS] [--within SECONDS] [--u0 V] [--cmin C] [--json]   look up a device's characteristic
   packsmith issue <job-folder> --by NAME [--date YYYY-MM-DD] [--reason TEXT] [--accept-open-items] [--out DIR] [--archive DIR] [--key FILE]
                                                 freeze the next revision into the job's archive (archive/<job>/rev-N/ beside the job
@@ -36,7 +38,7 @@ const USAGE = `usage:
 type Exit = 0 | 1 | 2;
 
 function check(args: string[]): Exit {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { json: { type: 'boolean' } } });
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { json: { type: 'boolean' }, explain: { type: 'boolean' } } });
   if (positionals.length !== 1) {
     process.stderr.write(`packsmith check needs one job folder\n${USAGE}`);
     return 2;
@@ -53,7 +55,7 @@ function check(args: string[]): Exit {
     const { overrides, ...rules } = a.rules;
     process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, ...(a.boards ? { boards: a.boards.map(boardJson) } : {}), circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
   } else {
-    process.stdout.write(assessmentText(a));
+    process.stdout.write(assessmentText(a, { explain: values.explain ?? false, width: Math.max(60, Math.min(process.stdout.columns ?? 100, 120)) }));
   }
   return a.summary.fail > 0 || a.summary['not-verified'] > 0 ? 1 : 0;
 }

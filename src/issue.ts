@@ -11,7 +11,7 @@ import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
 import { engineCache } from './render/engine.js';
 import { findChromium, NO_CHROMIUM_HELP } from './print/browser.js';
-import { dayOf } from './print/metadata.js';
+import { isIsoDay } from './model/dates.js';
 import { packData, dataBytes, type RevisionInfo } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
 import { inspectJob, type JobArchive } from './archive/verify.js';
@@ -52,16 +52,6 @@ export type IssueResult =
   | { ok: false; code: 1 | 2; reasons: string[] };
 
 const refuse = (code: 1 | 2, ...reasons: string[]): IssueResult => ({ ok: false, code, reasons });
-
-/** A YYYY-MM-DD that is a real day. */
-export function isIsoDay(s: string): boolean {
-  if (!/^\d{4}-\d{2}-\d{2}$/.test(s)) return false;
-  try {
-    return dayOf(s).toISOString().slice(0, 10) === s;
-  } catch {
-    return false;
-  }
-}
 
 const MAX_LISTED = 12;
 

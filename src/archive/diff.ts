@@ -1,7 +1,7 @@
 // Changes between two revisions' data.json: circuits added or removed, design data changed,
 // readings changed (old → new, with their test dates), verdicts changed, job details changed.
 import type { Changes } from '../render/view.js';
-import { showReading } from '../render/view.js';
+import { showReading } from '../render/values.js';
 import { MEASURED, type MeasuredField } from '../model/schema.js';
 import { circuitKey, type CircuitReadings } from '../model/readings.js';
 import type { Reading } from '../model/units.js';

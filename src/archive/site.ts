@@ -2,15 +2,17 @@
 // issue dates and links to every revision's HTML and PDF; DIR/<job>/index.html lists one job.
 // Plain static pages with relative links: they work from file:// and any web server, no script.
 // The revisions stay in the archive folder (kept with the jobs); the site, in out/, links them.
-import { mkdirSync, readdirSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
-import { overallStatus, STATUS_LOOK } from '../render/view.js';
+import { overallStatus, STATUS_LOOK } from '../render/status.js';
 import { archiveJobs, inspectJob } from './verify.js';
 import { readStamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
+import { parseJson } from './json.js';
 
 export interface SitePack {
   name: string;
@@ -24,6 +26,8 @@ export interface SitePack {
 export interface SiteJob {
   job: string;
   title: string;
+  client: string | null;
+  site: string | null;
   revisions: (SitePack & { by: string; reason: string | null })[];
   latest: SitePack | null;
   draft: SitePack | null;
@@ -39,6 +43,18 @@ export function statusWord(summary: Summary): string {
 export function countsText(summary: Summary): string {
   const parts = (['fail', 'not-verified', 'attention', 'pass'] as const).filter((s) => summary[s] > 0).map((s) => `${summary[s]} ${STATUS_LOOK[s].word}`);
   return parts.join(', ');
+}
+
+/** The client and site of an issued revision, from its data.json (null where it cannot be read). */
+function partiesOf(revisionDir: string): { client: string | null; site: string | null } {
+  try {
+    const parsed = parseJson(readFileSync(join(revisionDir, 'data.json'), 'utf8'));
+    const project = parsed.ok ? (parsed.value as { project?: { client?: { name?: unknown }; site?: { address?: unknown } } }).project : undefined;
+    const text = (v: unknown) => (typeof v === 'string' ? v : null);
+    return { client: text(project?.client?.name), site: text(project?.site?.address) };
+  } catch {
+    return { client: null, site: null };
+  }
 }
 
 /** A job and the archive folder that holds its revisions. */
@@ -76,9 +92,11 @@ export function siteJob(out: string, job: string, archiveDir: string | null = nu
     pdf: 'pack.pdf' in stamp.outputs ? 'draft/pack.pdf' : null,
   };
   const last = archive.revisions[archive.revisions.length - 1];
+  const parties = stamp?.client !== undefined ? { client: stamp.client, site: stamp.site ?? null } : last ? partiesOf(last.dir) : { client: null, site: null };
   return {
     job,
     title: last?.manifest.title ?? stamp?.title ?? job,
+    ...parties,
     revisions,
     latest: revisions[revisions.length - 1] ?? null,
     draft,
@@ -86,9 +104,42 @@ export function siteJob(out: string, job: string, archiveDir: string | null = nu
   };
 }
 
-const STYLE = `<style>body{font-family:"DejaVu Sans",sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1d2329}
+const STYLE = `<style>body{font-family:"DejaVu Sans",sans-serif;max-width:72rem;margin:2rem auto;padding:0 1rem;color:#1d2329}
 table{border-collapse:collapse;width:100%}td,th{border:1px solid #c9d0d6;padding:.3em .5em;text-align:left;vertical-align:top}
-thead th{background:#f1f4f6}.muted{color:#5b6670}.warn{color:#a3231f;font-weight:600}</style>`;
+thead th{background:#f1f4f6}.muted{color:#5b6670}.warn{color:#a3231f;font-weight:600}.date{white-space:nowrap}
+.scroll{overflow-x:auto}.tools{display:flex;flex-wrap:wrap;gap:.5em 1em;align-items:center}.tools input{font:inherit;padding:.25em .4em;min-width:16em}
+.tools button{font:inherit;padding:.25em .6em}@media (max-width:40rem){body{margin:1rem auto}}</style>`;
+
+/** The index's script: filter the rows as you type (every word must match), sort them by date. */
+export const SITE_SCRIPT = `(function () {
+  var find = document.getElementById('find'), sort = document.getElementById('sort'), body = document.getElementById('jobs-body'), none = document.getElementById('none');
+  if (!find || !sort || !body) return;
+  var rows = Array.prototype.slice.call(body.rows), newest = false;
+  function filter() {
+    var words = find.value.toLowerCase().split(/\\s+/).filter(Boolean), shown = 0;
+    rows.forEach(function (r) {
+      var text = r.getAttribute('data-text');
+      var hit = words.every(function (w) { return text.indexOf(w) >= 0; });
+      r.hidden = !hit;
+      if (hit) shown++;
+    });
+    if (none) none.hidden = shown > 0;
+  }
+  find.addEventListener('input', filter);
+  sort.addEventListener('click', function () {
+    newest = !newest;
+    rows.sort(function (a, b) {
+      var x = a.getAttribute('data-date'), y = b.getAttribute('data-date');
+      return newest ? y.localeCompare(x) : x.localeCompare(y);
+    });
+    rows.forEach(function (r) { body.appendChild(r); });
+    sort.textContent = newest ? 'Sort by date, oldest first' : 'Sort by date, newest first';
+  });
+  filter();
+})();`;
+
+/** The script's hash, for a Content-Security-Policy that allows exactly this inline script. */
+export const SITE_SCRIPT_SHA256 = `sha256-${createHash('sha256').update(SITE_SCRIPT).digest('base64')}`;
 
 const hb = Handlebars.create();
 hb.registerPartial('links', `<a href="{{prefix}}{{html}}">HTML</a>{{#if pdf}} · <a href="{{prefix}}{{pdf}}">PDF</a>{{/if}}`);
@@ -99,13 +150,17 @@ const indexPage = hb.compile(
 ${STYLE}</head>
 <body><h1>Completion packs</h1>
 {{#if jobs.length}}
-<table><thead><tr><th>Job</th><th>Latest revision</th><th>Status</th><th>Issued</th><th>Packs</th></tr></thead><tbody>
-{{#each jobs}}<tr><td><a href="{{job}}/index.html">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
-<td>{{#if latest}}{{latest.name}}, {{latest.date}}{{else}}none issued{{/if}}</td>
+<p class="tools"><label for="find">Find a job</label> <input type="search" id="find" placeholder="client, site, title or job" autocomplete="off"> <button type="button" id="sort">Sort by date, newest first</button></p>
+<div class="scroll"><table id="jobs"><thead><tr><th>Job</th><th>Client</th><th>Site</th><th>Latest</th><th>Date</th><th>Status</th><th>Packs</th></tr></thead><tbody id="jobs-body">
+{{#each jobs}}<tr data-date="{{sortDate}}" data-text="{{searchText}}"><td><a href="{{job}}/index.html">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
+<td>{{#if client}}{{client}}{{/if}}</td><td>{{#if site}}{{site}}{{/if}}</td>
+<td>{{#if latest}}{{latest.name}}{{else}}{{#if draft}}Draft only{{else}}none issued{{/if}}{{/if}}</td>
+<td class="date">{{#if latest}}{{latest.date}}{{else}}{{#if draft}}{{draft.date}}{{/if}}{{/if}}</td>
 <td>{{#if latest}}{{latest.status}}<br><span class="muted">{{latest.counts}}</span>{{else}}{{#if draft}}{{draft.status}} (draft)<br><span class="muted">{{draft.counts}}</span>{{/if}}{{/if}}</td>
-<td>{{#each revisions}}{{name}}: {{date}}<br>{{/each}}</td>
-<td>{{#each revisions}}{{name}}: {{> links prefix=(concat ../job "/")}}<br>{{/each}}{{#if draft}}Draft: {{> links draft prefix=(concat job "/")}}{{/if}}</td></tr>
-{{/each}}</tbody></table>
+<td>{{#each revisions}}<span class="date">{{name}}: {{> links prefix=(concat ../job "/")}}</span><br>{{/each}}{{#if draft}}<span class="date">Draft: {{> links draft prefix=(concat job "/")}}</span>{{/if}}</td></tr>
+{{/each}}</tbody></table></div>
+<p id="none" class="muted" hidden>No job matches.</p>
+<script>${SITE_SCRIPT}</script>
 {{else}}<p>Nothing built or issued yet.</p>{{/if}}
 </body></html>
 `,
@@ -118,16 +173,16 @@ const jobPage = hb.compile(
 ${STYLE}</head>
 <body><p><a href="../index.html">All jobs</a></p>
 <h1>{{title}}</h1>
-<p class="muted">Job {{job}}</p>
+<p class="muted">Job {{job}}{{#if client}} · {{client}}{{/if}}{{#if site}} · {{site}}{{/if}}</p>
 {{#if findings}}<p class="warn">The archive of this job has {{findings}} finding(s): run packsmith verify.</p>{{/if}}
 <h2>Issued revisions</h2>
 {{#if revisions.length}}
-<table><thead><tr><th>Revision</th><th>Issued</th><th>By</th><th>Reason</th><th>Status</th><th>Pack</th></tr></thead><tbody>
-{{#each revisions}}<tr><td>{{name}}</td><td>{{date}}</td><td>{{by}}</td><td>{{#if reason}}{{reason}}{{/if}}</td><td>{{status}}<br><span class="muted">{{counts}}</span></td><td>{{> links prefix=""}}</td></tr>
-{{/each}}</tbody></table>
+<div class="scroll"><table><thead><tr><th>Revision</th><th>Issued</th><th>By</th><th>Reason</th><th>Status</th><th>Pack</th></tr></thead><tbody>
+{{#each revisions}}<tr><td>{{name}}</td><td class="date">{{date}}</td><td>{{by}}</td><td>{{#if reason}}{{reason}}{{/if}}</td><td>{{status}}<br><span class="muted">{{counts}}</span></td><td>{{> links prefix=""}}</td></tr>
+{{/each}}</tbody></table></div>
 {{else}}<p>No revision issued yet.</p>{{/if}}
 {{#if draft}}<h2>Draft</h2>
-<p>Last test {{draft.date}} · {{draft.status}} <span class="muted">({{draft.counts}})</span> · {{> links draft prefix=""}}</p>{{/if}}
+<p>Last test <span class="date">{{draft.date}}</span> · {{draft.status}} <span class="muted">({{draft.counts}})</span> · {{> links draft prefix=""}}</p>{{/if}}
 </body></html>
 `,
   { strict: true },
@@ -136,7 +191,12 @@ ${STYLE}</head>
 hb.registerHelper('concat', (...args: unknown[]) => args.slice(0, -1).join(''));
 
 export function renderIndex(jobs: SiteJob[]): string {
-  return indexPage({ jobs: [...jobs].sort((a, b) => a.job.localeCompare(b.job)) });
+  const rows = [...jobs].sort((a, b) => a.job.localeCompare(b.job)).map((j) => ({
+    ...j,
+    sortDate: j.latest?.date ?? j.draft?.date ?? '',
+    searchText: [j.job, j.title, j.client, j.site].filter(Boolean).join(' ').toLowerCase(),
+  }));
+  return indexPage({ jobs: rows });
 }
 
 export const renderJobPage = (job: SiteJob): string => jobPage(job);

@@ -4,6 +4,7 @@
 // title, author (the firm) and subject (the job) are set, and data.json rides along as an
 // embedded file.
 import { normaliseStructureIds } from './structure-ids.js';
+import { dayOf } from '../model/dates.js';
 
 export interface PdfMetadata {
   title: string;
@@ -17,13 +18,6 @@ export interface PdfMetadata {
   producer: string;
   creator: string;
   attachments: { name: string; bytes: Uint8Array; mimeType: string; description: string }[];
-}
-
-/** Midnight UTC of a YYYY-MM-DD date: a fixed instant, whatever the machine's time zone. */
-export function dayOf(date: string): Date {
-  const d = new Date(`${date}T00:00:00Z`);
-  if (Number.isNaN(d.getTime())) throw new Error(`not a date: "${date}" (expected YYYY-MM-DD)`);
-  return d;
 }
 
 export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {

@@ -22,7 +22,8 @@ export function pdfOptions(opts: PdfOptions): PDFOptions {
     displayHeaderFooter: true,
     headerTemplate: opts.header,
     footerTemplate: opts.footer,
-    preferCSSPageSize: false,
+    // the pack's @page rules choose the sheet: its paper, and landscape for the board schedules
+    preferCSSPageSize: true,
     margin: { top: '18mm', bottom: '16mm', left: '14mm', right: '14mm' },
     tagged: true,
     outline: true,

@@ -15,9 +15,11 @@ export interface CurveSnippetOptions {
   downstream?: { device: Device; label: string; uptoA: number | null };
 }
 
-const WIDTH = 360;
-const HEIGHT = 260;
-const M = { left: 50, right: 14, top: 12, bottom: 38 };
+// Drawn to print about 62 mm wide: 10-unit text is then about 6.8 pt, readable on paper.
+const WIDTH = 260;
+const HEIGHT = 170;
+const M = { left: 40, right: 8, top: 8, bottom: 30 };
+const FONT = 10;
 const PW = WIDTH - M.left - M.right;
 const PH = HEIGHT - M.top - M.bottom;
 const I_MIN = 1;
@@ -54,11 +56,11 @@ function grid(): string[] {
   const out: string[] = [];
   for (const i of x.ticks(4)) {
     out.push(`<line class="grid" data-current-a="${fmt(i)}" x1="${c(x(i))}" y1="0.0" x2="${c(x(i))}" y2="${c(PH)}"/>`);
-    out.push(`<text class="tick" x="${c(x(i))}" y="${c(PH + 12)}" text-anchor="middle">${decadeLabel(i)}</text>`);
+    out.push(`<text class="tick" x="${c(x(i))}" y="${c(PH + 11)}" text-anchor="middle">${decadeLabel(i)}</text>`);
   }
   for (const t of y.ticks(6)) {
     out.push(`<line class="grid" data-time-s="${fmt(t)}" x1="0.0" y1="${c(y(t))}" x2="${c(PW)}" y2="${c(y(t))}"/>`);
-    out.push(`<text class="tick" x="-4.0" y="${c(y(t) + 3)}" text-anchor="end">${decadeLabel(t)}</text>`);
+    out.push(`<text class="tick" x="-3.0" y="${c(y(t) + 3.5)}" text-anchor="end">${decadeLabel(t)}</text>`);
   }
   return out;
 }
@@ -136,10 +138,10 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
   }
 
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans, sans-serif" font-size="9">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans Condensed, DejaVu Sans, sans-serif" font-size="${FONT}">`,
     `<title>${escape(title)}</title>`,
     `<desc>${escape(desc.join(' '))}</desc>`,
-    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
+    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.note{paint-order:stroke;stroke:#fff;stroke-width:3px;stroke-linejoin:round}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
       + '.slowest{fill:none;stroke:#1d3f66;stroke-width:1.5}.fastest{fill:none;stroke:#1d3f66;stroke-width:0.75}'
       + '.required{stroke:#a33;stroke-width:1;stroke-dasharray:4 3}.fault{stroke:#333;stroke-width:0.75;stroke-dasharray:1 2}'
       + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}'
@@ -153,8 +155,8 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     '</svg>',
     `<rect class="frame" x="0" y="0" width="${PW}" height="${PH}"/>`,
     ...over,
-    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 28)}" text-anchor="middle">prospective fault current (A)</text>`,
-    `<text class="axis" transform="translate(-36,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
+    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 24)}" text-anchor="middle">prospective fault current (A)</text>`,
+    `<text class="axis" transform="translate(-29,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
     '</g>',
     '</svg>',
   ].join('\n');

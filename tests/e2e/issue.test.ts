@@ -94,7 +94,7 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(r.stdout).toContain('issued Revision 2');
     const { headings, rows } = changesOf(readFileSync(join(rev(2), 'pack.html'), 'utf8'));
     expect(headings).toEqual(['Changes since Revision 1', 'Readings changed']);
-    expect(rows).toEqual(['DB1 1 zs_ohm 1.08 Ω on 2026-10-09 1.12 Ω on 2026-10-09']);
+    expect(rows).toEqual(['DB1 1 Measured Zs 1.08 Ω on 2026-10-09 1.12 Ω on 2026-10-09']);
     expect(folderHashes(rev(1))).toEqual(first);
     expect(mode(rev(1))).toBe(0o555);
     const m2 = JSON.parse(readFileSync(join(rev(2), 'manifest.json'), 'utf8')) as Record<string, any>;
@@ -160,7 +160,7 @@ describe('packsmith issue: refusals and open items', () => {
     expect(openAt).toBeGreaterThan(0);
     expect(openAt).toBeLessThan(html.indexOf('<section class="board"'));
     const firstRow = /<table class="open">\s*<thead>[\s\S]*?<\/thead>\s*<tbody>\s*<tr>([\s\S]*?)<\/tr>/.exec(html)![1]!;
-    expect(firstRow).toMatch(/polarity.*fail/);
+    expect(firstRow).toMatch(/Polarity.*fail/);
     // the cover says the revision was issued with open items accepted
     expect(html.slice(0, html.indexOf('id="summary"'))).toMatch(/Issued with open items accepted/);
   });
