@@ -45,7 +45,7 @@ describe('a signed issue with the firm file', () => {
     expect(r.code).toBe(0);
     const rev = join(root, 'records', 'archive-job', 'rev-1');
     expect(readdirSync(rev).sort()).toEqual(['data.json', 'manifest.json', 'manifest.sig', 'pack.html', 'pack.pdf']);
-    expect(readFileSync(join(rev, 'pack.html'), 'utf8')).toContain(`Signed with the firm's key ${fp}`);
+    expect(readFileSync(join(rev, 'pack.html'), 'utf8')).toContain(`signed with the key whose fingerprint is <code>${fp}</code>`);
     expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false);
     const v = packsmith(['verify', join(root, 'projects')]);
     expect(v.code).toBe(0);
