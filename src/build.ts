@@ -2,8 +2,8 @@
 // Incremental: a job whose draft was built from the same inputs, templates, packsmith version and
 // latest revision is skipped (--force builds it anyway). One Chromium serves the whole build,
 // started only when something needs printing; without one, the HTML is still written.
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { join } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
 import { engineCache } from './render/engine.js';
@@ -17,6 +17,7 @@ import { changesSince } from './archive/previous.js';
 import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { writeSite } from './archive/site.js';
+import { claimOut, outDir } from './archive/out.js';
 import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
@@ -66,7 +67,7 @@ const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '197
 
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
-  const out = resolve(opts.out);
+  const out = claimOut(opts.out);
   const engineFor = engineCache();
   const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
@@ -115,7 +116,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
       const pack = packFiles(project, assessment, label, since.ok ? since.changes : null, style);
 
-      mkdirSync(target, { recursive: true });
+      outDir(out, project.name, 'draft');
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);

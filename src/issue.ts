@@ -20,6 +20,7 @@ import { openStaging } from './archive/freeze.js';
 import { clearStale } from './archive/files.js';
 import { step } from './archive/steps.js';
 import { writeSite } from './archive/site.js';
+import { claimOut, outDir, OutputFolderError } from './archive/out.js';
 import { lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
@@ -126,7 +127,13 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
   const chromium = findChromium();
   if (!chromium) return refuse(2, `${NO_CHROMIUM_HELP} A revision needs its PDF, so nothing was issued.`);
   const { project, assessment } = job;
-  const out = resolve(opts.out);
+  let out: string;
+  try {
+    out = claimOut(opts.out);
+  } catch (e) {
+    if (e instanceof OutputFolderError) return refuse(2, e.message);
+    throw e;
+  }
   const jobDir = job.raw.dir;
   const jobOut = join(out, project.name);
   const inputs = fileHashes(job.raw.files);
@@ -166,7 +173,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const html = pack.html;
       step('rendered');
 
-      const staging = openStaging(jobOut);
+      const staging = openStaging(outDir(out, project.name));
       let committed = false;
       try {
         step('staging');

@@ -2,6 +2,7 @@
 // issue dates and links to every revision's HTML and PDF; DIR/<job>/index.html lists one job.
 // Plain static pages with relative links: they work from file:// and any web server, no script.
 import { existsSync, mkdirSync } from 'node:fs';
+import { outDir } from './out.js';
 import { join } from 'node:path';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
@@ -10,6 +11,7 @@ import { archiveJobs, inspectJob } from './verify.js';
 import { readStamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
+import { withCsp } from '../render/csp.js';
 
 export interface SitePack {
   name: string;
@@ -79,7 +81,10 @@ table{border-collapse:collapse;width:100%}td,th{border:1px solid #c9d0d6;padding
 thead th{background:#f1f4f6}.muted{color:#5b6670}.warn{color:#a3231f;font-weight:600}</style>`;
 
 const hb = Handlebars.create();
-hb.registerPartial('links', `<a href="{{prefix}}{{html}}">HTML</a>{{#if pdf}} · <a href="{{prefix}}{{pdf}}">PDF</a>{{/if}}`);
+hb.registerPartial('links', `<a href="{{href prefix html}}">HTML</a>{{#if pdf}} · <a href="{{href prefix pdf}}">PDF</a>{{/if}}`);
+// A link is always relative ("./"), each folder name percent-encoded: a job folder named
+// "javascript:alert(1)" is a folder, never a scheme.
+hb.registerHelper('href', (...args: unknown[]) => `./${args.slice(0, -1).flatMap((a) => String(a).split('/')).filter((p) => p !== '').map(encodeURIComponent).join('/')}`);
 
 const indexPage = hb.compile(
   `<!doctype html>
@@ -88,11 +93,11 @@ ${STYLE}</head>
 <body><h1>Completion packs</h1>
 {{#if jobs.length}}
 <table><thead><tr><th>Job</th><th>Latest revision</th><th>Status</th><th>Issued</th><th>Packs</th></tr></thead><tbody>
-{{#each jobs}}<tr><td><a href="{{job}}/index.html">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
+{{#each jobs}}<tr><td><a href="{{href job "index.html"}}">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
 <td>{{#if latest}}{{latest.name}}, {{latest.date}}{{else}}none issued{{/if}}</td>
 <td>{{#if latest}}{{latest.status}}<br><span class="muted">{{latest.counts}}</span>{{else}}{{#if draft}}{{draft.status}} (draft)<br><span class="muted">{{draft.counts}}</span>{{/if}}{{/if}}</td>
 <td>{{#each revisions}}{{name}}: {{date}}<br>{{/each}}</td>
-<td>{{#each revisions}}{{name}}: {{> links prefix=(concat ../job "/")}}<br>{{/each}}{{#if draft}}Draft: {{> links draft prefix=(concat job "/")}}{{/if}}</td></tr>
+<td>{{#each revisions}}{{name}}: {{> links prefix=../job}}<br>{{/each}}{{#if draft}}Draft: {{> links draft prefix=job}}{{/if}}</td></tr>
 {{/each}}</tbody></table>
 {{else}}<p>Nothing built or issued yet.</p>{{/if}}
 </body></html>
@@ -121,19 +126,18 @@ ${STYLE}</head>
   { strict: true },
 );
 
-hb.registerHelper('concat', (...args: unknown[]) => args.slice(0, -1).join(''));
 
 export function renderIndex(jobs: SiteJob[]): string {
-  return indexPage({ jobs: [...jobs].sort((a, b) => a.job.localeCompare(b.job)) });
+  return withCsp(indexPage({ jobs: [...jobs].sort((a, b) => a.job.localeCompare(b.job)) }));
 }
 
-export const renderJobPage = (job: SiteJob): string => jobPage(job);
+export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
 
 /** Write the site of the archive folder `out` from what it holds. */
 export function writeSite(out: string): SiteJob[] {
   mkdirSync(out, { recursive: true });
   const jobs = archiveJobs(out).map((j) => siteJob(out, j)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) if (existsSync(join(out, j.job))) writeReplacing(join(out, j.job, 'index.html'), renderJobPage(j));
+  for (const j of jobs) if (existsSync(join(out, j.job))) writeReplacing(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
   writeReplacing(join(out, 'index.html'), renderIndex(jobs));
   return jobs;
 }

@@ -31,6 +31,13 @@ export const zsMeasured: Check = (ctx) => {
       : result(id, 'not-verified', `measured Zs over range (> ${fmt(zs.value)} Ω): cannot show ≤ ${rule}`, numbers);
   }
   const margin = limit - zs.value;
+  // Plausibility (src/reference/plausibility.ts): the loop through a circuit includes its board's,
+  // so a measured Zs below the board's Zdb (or Ze) is queried, never passed as it stands.
+  const upstream = ctx.board.zdb_ohm ?? ctx.supply.ze_ohm;
+  if (zs.value <= limit && upstream !== undefined && zs.value < upstream) {
+    const what = ctx.board.zdb_ohm !== undefined ? `Zdb ${fmt(upstream)} Ω of ${ctx.board.id}` : `Ze ${fmt(upstream)} Ω`;
+    return result(id, 'attention', `measured Zs ${fmt(zs.value)} Ω is below ${what}, which the circuit's loop includes: a parallel earth path or an un-nulled lead? Re-test; ≤ ${rule}`, numbers);
+  }
   return zs.value <= limit
     ? result(id, 'pass', `measured Zs ${fmt(zs.value)} Ω ≤ ${rule}; margin ${fmt(margin)} Ω`, numbers)
     : result(id, 'fail', `measured Zs ${fmt(zs.value)} Ω > ${rule}; over by ${fmt(-margin)} Ω`, numbers);
