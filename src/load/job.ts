@@ -50,14 +50,14 @@ export function readJob(dir: string): RawJob {
     errors.push({ file: dir, row: 1, column: 1, message: 'no job folder here; expected a folder holding project.yaml and circuits.csv' });
     return job;
   }
-  /** The text of a file of the job, null when missing; a refused or undecodable file is an error. */
-  const read = (rel: string): string | null => {
+  /** The text of a file of the job, null when missing, undefined when refused (an error, reported here). */
+  const read = (rel: string): string | null | undefined => {
     let bytes: Buffer | null;
     try {
       bytes = readConfined(root, rel, JOB_FOLDER);
     } catch (e) {
       errors.push({ file: rel, row: 1, column: 1, message: (e as Error).message.slice(rel.length + 2) });
-      return '';
+      return undefined;
     }
     if (bytes === null) return null;
     files.set(rel, bytes);
@@ -69,7 +69,7 @@ export function readJob(dir: string): RawJob {
   const projectText = read('project.yaml');
   if (projectText === null) {
     errors.push({ file: 'project.yaml', row: 1, column: 1, message: 'file missing; every job needs a project.yaml (title, client, site, supply, boards)' });
-  } else {
+  } else if (projectText !== undefined) {
     const { doc, errors: e } = readYaml('project.yaml', projectText);
     job.project = doc;
     for (const x of e) errors.push(x);
@@ -88,7 +88,7 @@ export function readJob(dir: string): RawJob {
   const circuitsText = read('circuits.csv');
   if (circuitsText === null) {
     errors.push({ file: 'circuits.csv', row: 1, column: 1, message: 'file missing; every job needs a circuits.csv with one row per circuit' });
-  } else {
+  } else if (circuitsText !== undefined) {
     const { table, errors: e } = readCsv('circuits.csv', circuitsText);
     job.circuits = table;
     for (const x of e) errors.push(x);
@@ -111,8 +111,9 @@ export function readJob(dir: string): RawJob {
         errors.push({ file: rel, row: 1, column: 1, message: notASession(name, folder) });
         continue;
       }
-      const text = read(rel) ?? '';
-      const { table, errors: e } = readCsv(rel, text);
+      const text = read(rel);
+      if (text === undefined) continue;
+      const { table, errors: e } = readCsv(rel, text ?? '');
       for (const x of e) errors.push(x);
       sessions.push({ date: m[1]!, label: m[2] ?? '', table });
     }
@@ -122,6 +123,6 @@ export function readJob(dir: string): RawJob {
   }
 
   const notes = read('notes.md');
-  if (notes !== null) job.notes = { file: 'notes.md', text: notes };
+  if (notes !== null && notes !== undefined) job.notes = { file: 'notes.md', text: notes };
   return job;
 }
