@@ -64,7 +64,12 @@ export async function preparePage(page: Page): Promise<PrintPage> {
       await page.goto(own, { waitUntil: 'load' });
       let err = away();
       if (err) throw err;
-      const pdf = await page.pdf(pdfOptions(opts));
+      let pdf: Uint8Array;
+      try {
+        pdf = await page.pdf(pdfOptions(opts));
+      } catch (e) {
+        throw away() ?? e; // the refused navigation is the cause worth naming
+      }
       err = away();
       if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
       return { pdf, refused };
