@@ -16,16 +16,16 @@ const JOB_FOLDER = 'the job folder';
 const isDirectory = (p: string): boolean => existsSync(p) && statSync(p).isDirectory();
 
 /**
- * The folder a job may name paths in (its theme): the nearest folder above the job that holds a
- * firm file (packsmith.yaml), else the folder above the one that holds the job folders
- * (`<firm>/projects/<job>` → `<firm>`). Paths outside it are given on the command line only.
+ * The folder a job may name paths in (its theme): the folder above the one that holds the job
+ * folders (`<firm>/projects/<job>` → `<firm>`), or a folder higher up that holds a firm file
+ * (packsmith.yaml). Paths outside it are given on the command line only.
  */
 export function firmFolder(jobDir: string): string {
-  const real = realFolder(jobDir);
-  for (let d = dirname(real); d !== dirname(d); d = dirname(d)) {
+  const fallback = dirname(dirname(realFolder(jobDir)));
+  for (let d = dirname(fallback); d !== dirname(d); d = dirname(d)) {
     if (existsSync(join(d, 'packsmith.yaml'))) return d;
   }
-  return dirname(dirname(real));
+  return fallback;
 }
 
 /** Why a name in readings/ is not a test session, and what to do. */
