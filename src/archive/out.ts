@@ -32,15 +32,15 @@ function looksLikeJobOutput(dir: string): boolean {
 }
 
 /**
- * The output folder, checked and marked: its real path. Refused (OutputFolderError) when it is a
- * filesystem root, not a folder, or a folder holding anything packsmith did not write.
+ * The output folder, checked (nothing is written until outDir): its real path. Refused
+ * (OutputFolderError) when it is a filesystem root, not a folder, or a folder holding anything
+ * packsmith did not write.
  */
 export function claimOut(dir: string): string {
   const given = resolve(dir);
   if (parse(given).root === given) throw new OutputFolderError(`--out "${dir}" is the root of a filesystem; give a folder of its own, e.g. out/`);
-  if (!existsSync(given)) {
-    mkdirSync(given, { recursive: true });
-  } else if (!statSync(given).isDirectory()) {
+  if (!existsSync(given)) return given;
+  if (!statSync(given).isDirectory()) {
     throw new OutputFolderError(`--out "${dir}" is a file; give a folder (a new or empty one, or one packsmith wrote before)`);
   }
   const real = realpathSync(given);
@@ -51,7 +51,6 @@ export function claimOut(dir: string): string {
     if (foreign.length > 0) {
       throw new OutputFolderError(`--out "${dir}" holds files packsmith did not write (${foreign.slice(0, 5).join(', ')}${foreign.length > 5 ? ', ...' : ''}); packsmith writes only into a new or empty folder, or one it wrote before: give another folder`);
     }
-    writeReplacing(join(real, OUT_MARK), MARK_TEXT);
   }
   return real;
 }
@@ -61,6 +60,8 @@ export function claimOut(dir: string): string {
  * file) on the way is refused, never followed.
  */
 export function outDir(out: string, ...segments: string[]): string {
+  mkdirSync(out, { recursive: true });
+  if (!existsSync(join(out, OUT_MARK))) writeReplacing(join(out, OUT_MARK), MARK_TEXT);
   let path = out;
   for (const segment of segments) {
     if (segment === '' || segment === '.' || segment === '..' || segment.includes('/') || segment.includes('\\')) {

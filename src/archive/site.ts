@@ -1,7 +1,7 @@
 // The archive site: DIR/index.html lists every job with its latest revision, its status, its
 // issue dates and links to every revision's HTML and PDF; DIR/<job>/index.html lists one job.
 // Plain static pages with relative links: they work from file:// and any web server, no script.
-import { existsSync, mkdirSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { outDir } from './out.js';
 import { join } from 'node:path';
 import Handlebars from 'handlebars';
@@ -135,7 +135,7 @@ export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
 
 /** Write the site of the archive folder `out` from what it holds. */
 export function writeSite(out: string): SiteJob[] {
-  mkdirSync(out, { recursive: true });
+  outDir(out);
   const jobs = archiveJobs(out).map((j) => siteJob(out, j)).filter((j): j is SiteJob => j !== null);
   for (const j of jobs) if (existsSync(join(out, j.job))) writeReplacing(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
   writeReplacing(join(out, 'index.html'), renderIndex(jobs));
