@@ -143,7 +143,7 @@ export function runCase(b: Base, file: string, bytes: Uint8Array, cell: Cell | n
     const mutated = statusMap(assess(v.project));
     const flips = [...mutated].filter(([k, s]) => s === 'pass' && b.statuses.get(k) !== 'pass');
     if (flips.length === 0) return { kind: 'valid' };
-    if (!cell) return { kind: 'wrong-pass', detail: `${flips.map(([k]) => k.replace(/\u0000/g, '/')).join(', ')} became pass with no single cell to explain it` };
+    if (!cell) return explainedPlainly(b, file, v.project.rows, flips.map(([k]) => k));
     // the value as read, written plainly in place of the cell, nothing else changed
     const row = v.project.rows.find((r) => r.file === file && r.row === cell.line);
     const value = row?.values[cell.field as keyof typeof row.values] as Reading | undefined;
@@ -156,6 +156,29 @@ export function runCase(b: Base, file: string, bytes: Uint8Array, cell: Cell | n
   } catch (e) {
     return { kind: 'crash', detail: e instanceof Error ? `${e.message}\n${e.stack}` : String(e) };
   }
+}
+
+const csvCell = (s: string): string => (/[",\r\n;\t]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
+
+/**
+ * A mutation of a whole readings file: the rows as read, written out plainly (packsmith's column
+ * names, every value in the plain grammar), must give the same passes. A mutation of another file
+ * is judged for crashes and locations only (its design values have no plain oracle here).
+ */
+function explainedPlainly(b: Base, file: string, rows: { file: string; values: Record<string, unknown> }[], flips: string[]): Outcome {
+  if (!file.startsWith('readings/')) return { kind: 'valid' };
+  const own = rows.filter((r) => r.file === file);
+  const fields = [...new Set(own.flatMap((r) => Object.keys(r.values).filter((k) => r.values[k] !== undefined)))];
+  const header = ['board', 'ref', ...fields.filter((f) => f !== 'board' && f !== 'ref')];
+  const text = [header.join(','), ...own.map((r) => header.map((h) => {
+    const v = r.values[h];
+    return csvCell(v === undefined ? '' : typeof v === 'string' ? v : plain(v as Reading));
+  }).join(','))].join('\n');
+  const p = validate(withFile(b, file, Buffer.from(`${text}\n`)), CALC_RULES);
+  if (!p.ok) return { kind: 'wrong-pass', detail: `${file} as read is refused when written plainly: ${p.errors[0]?.message}` };
+  const explained = statusMap(assess(p.project));
+  const wrong = flips.filter((k) => explained.get(k) !== 'pass');
+  return wrong.length === 0 ? { kind: 'valid' } : { kind: 'wrong-pass', detail: `${file} → ${wrong.map((k) => k.replace(/\u0000/g, '/')).join(', ')} pass, but not with the rows as read written plainly` };
 }
 
 export interface Counts { cases: number; systematic: number; random: number; valid: number; refused: number; crashes: number; unlocated: number; wrongPasses: number; hangs: number; examples: string[] }
