@@ -2,7 +2,7 @@
 // Incremental: a job whose draft was built from the same inputs, templates, packsmith version and
 // latest revision is skipped (--force builds it anyway). One Chromium serves the whole build,
 // started only when something needs printing; without one, the HTML is still written.
-import { mkdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
@@ -22,6 +22,7 @@ import { jobFolders } from './load/jobs.js';
 import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf, type PackStyle } from './produce.js';
 import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
+import { claimOut, outDir } from './archive/out.js';
 import { VERSION } from './version.js';
 
 export interface BuildOptions {
@@ -78,7 +79,7 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
 
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
-  const out = resolve(opts.out);
+  const out = claimOut(opts.out);
   const engineFor = engineCache();
   const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
@@ -126,7 +127,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       }
       const { date, label, data, pack } = draftPack(project, assessment, latest, style, log);
 
-      mkdirSync(target, { recursive: true });
+      outDir(out, project.name, 'draft');
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);

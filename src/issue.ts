@@ -26,6 +26,7 @@ import { openStaging } from './archive/freeze.js';
 import { clearStale } from './archive/files.js';
 import { step } from './archive/steps.js';
 import { writeSite } from './archive/site.js';
+import { claimOut, outDir, OutputFolderError } from './archive/out.js';
 import { lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
@@ -189,7 +190,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const html = pack.html;
       step('rendered');
 
-      const staging = openStaging(jobOut);
+      const staging = openStaging(outDir(out, project.name));
       let committed = false;
       try {
         step('staging');

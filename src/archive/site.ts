@@ -5,6 +5,7 @@
 import { createHash } from 'node:crypto';
 import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
+import { outDir } from './out.js';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
 import { overallStatus, STATUS_LOOK } from '../render/status.js';
@@ -13,6 +14,7 @@ import { readStamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
 import { parseJson } from './json.js';
+import { withCsp } from '../render/csp.js';
 
 export interface SitePack {
   name: string;
@@ -142,7 +144,10 @@ export const SITE_SCRIPT = `(function () {
 export const SITE_SCRIPT_SHA256 = `sha256-${createHash('sha256').update(SITE_SCRIPT).digest('base64')}`;
 
 const hb = Handlebars.create();
-hb.registerPartial('links', `<a href="{{prefix}}{{html}}">HTML</a>{{#if pdf}} · <a href="{{prefix}}{{pdf}}">PDF</a>{{/if}}`);
+hb.registerPartial('links', `<a href="{{href prefix html}}">HTML</a>{{#if pdf}} · <a href="{{href prefix pdf}}">PDF</a>{{/if}}`);
+// A link is always relative ("./"), each folder name percent-encoded: a job folder named
+// "javascript:alert(1)" is a folder, never a scheme.
+hb.registerHelper('href', (...args: unknown[]) => `./${args.slice(0, -1).flatMap((a) => String(a).split('/')).filter((p) => p !== '').map(encodeURIComponent).join('/')}`);
 
 const indexPage = hb.compile(
   `<!doctype html>
@@ -152,12 +157,12 @@ ${STYLE}</head>
 {{#if jobs.length}}
 <p class="tools"><label for="find">Find a job</label> <input type="search" id="find" placeholder="client, site, title or job" autocomplete="off"> <button type="button" id="sort">Sort by date, newest first</button></p>
 <div class="scroll"><table id="jobs"><thead><tr><th>Job</th><th>Client</th><th>Site</th><th>Latest</th><th>Date</th><th>Status</th><th>Packs</th></tr></thead><tbody id="jobs-body">
-{{#each jobs}}<tr data-date="{{sortDate}}" data-text="{{searchText}}"><td><a href="{{job}}/index.html">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
+{{#each jobs}}<tr data-date="{{sortDate}}" data-text="{{searchText}}"><td><a href="{{href job "index.html"}}">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
 <td>{{#if client}}{{client}}{{/if}}</td><td>{{#if site}}{{site}}{{/if}}</td>
 <td>{{#if latest}}{{latest.name}}{{else}}{{#if draft}}Draft only{{else}}none issued{{/if}}{{/if}}</td>
 <td class="date">{{#if latest}}{{latest.date}}{{else}}{{#if draft}}{{draft.date}}{{/if}}{{/if}}</td>
 <td>{{#if latest}}{{latest.status}}<br><span class="muted">{{latest.counts}}</span>{{else}}{{#if draft}}{{draft.status}} (draft)<br><span class="muted">{{draft.counts}}</span>{{/if}}{{/if}}</td>
-<td>{{#each revisions}}<span class="date">{{name}}: {{> links prefix=(concat ../job "/")}}</span><br>{{/each}}{{#if draft}}<span class="date">Draft: {{> links draft prefix=(concat job "/")}}</span>{{/if}}</td></tr>
+<td>{{#each revisions}}<span class="date">{{name}}: {{> links prefix=../job}}</span><br>{{/each}}{{#if draft}}<span class="date">Draft: {{> links draft prefix=job}}</span>{{/if}}</td></tr>
 {{/each}}</tbody></table></div>
 <p id="none" class="muted" hidden>No job matches.</p>
 <script>${SITE_SCRIPT}</script>
@@ -188,7 +193,6 @@ ${STYLE}</head>
   { strict: true },
 );
 
-hb.registerHelper('concat', (...args: unknown[]) => args.slice(0, -1).join(''));
 
 export function renderIndex(jobs: SiteJob[]): string {
   const rows = [...jobs].sort((a, b) => a.job.localeCompare(b.job)).map((j) => ({
@@ -196,17 +200,17 @@ export function renderIndex(jobs: SiteJob[]): string {
     sortDate: j.latest?.date ?? j.draft?.date ?? '',
     searchText: [j.job, j.title, j.client, j.site].filter(Boolean).join(' ').toLowerCase(),
   }));
-  return indexPage({ jobs: rows });
+  return withCsp(indexPage({ jobs: rows }), [SITE_SCRIPT_SHA256]);
 }
 
-export const renderJobPage = (job: SiteJob): string => jobPage(job);
+export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
 
 /**
  * Write the site in `out`: every job with a draft there (its build.json names its archive), every
  * job of `sources`, and every other job of their archive folders.
  */
 export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
-  mkdirSync(out, { recursive: true });
+  outDir(out);
   const where = new Map<string, string | null>();
   for (const name of readdirSync(out, { withFileTypes: true })) {
     if (name.isDirectory() && !name.name.startsWith('.')) where.set(name.name, null);
@@ -215,8 +219,7 @@ export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
   for (const s of sources) where.set(s.job, s.archive);
   const jobs = [...where].map(([j, a]) => siteJob(out, j, a)).filter((j): j is SiteJob => j !== null);
   for (const j of jobs) {
-    mkdirSync(join(out, j.job), { recursive: true });
-    writeReplacing(join(out, j.job, 'index.html'), renderJobPage(j));
+    writeReplacing(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
   }
   writeReplacing(join(out, 'index.html'), renderIndex(jobs));
   return jobs;

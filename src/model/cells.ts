@@ -2,18 +2,20 @@
 // and every problem becomes a message in the words of the trade (what was found, what was expected).
 import { z } from 'zod';
 import { parseCell, QUANTITIES, type Quantity, type Reading } from './units.js';
+import { implausible } from './plausible.js';
+import { plainText } from '../load/number.js';
 
 const found = (input: unknown): string =>
   input === undefined || input === '' ? 'nothing' : `"${String(input)}"`;
 
 /** YAML gives numbers as numbers; CSV gives text. Both end up as text for the unit parser. */
-const asText = (v: unknown): unknown => (typeof v === 'number' ? String(v) : v);
+const asText = (v: unknown): unknown => (typeof v === 'number' ? plainText(v) : v);
 
 const text = (what: string) =>
   z.preprocess(asText, z.string({ error: (iss) => `found ${found(iss.input)}; expected ${what}` }));
 
 /** A design value: a plain number in the field's unit (no n/a, no over-range). */
-export function quantity(q: Quantity, opts: { positive?: boolean; min?: number; max?: number } = {}) {
+export function quantity(q: Quantity, opts: { positive?: boolean; min?: number; max?: number; field?: string } = {}) {
   return text(QUANTITIES[q].words).transform((s, ctx) => {
     const r = parseCell(s, q);
     if (!r.ok) {
@@ -31,17 +33,26 @@ export function quantity(q: Quantity, opts: { positive?: boolean; min?: number; 
       ctx.addIssue({ code: 'custom', message: `found "${s}"; expected at least ${opts.min}` });
     } else if (opts.max !== undefined && v > opts.max) {
       ctx.addIssue({ code: 'custom', message: `found "${s}"; expected at most ${opts.max}` });
+    } else {
+      const problem = opts.field ? implausible(opts.field, v, s) : null;
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
     }
     return v;
   });
 }
 
 /** A test reading: a number, an over-range lower bound, n/a or not-tested; `unit` the column's. */
-export function reading(q: Quantity, unit = '') {
+export function reading(q: Quantity, unit = '', field = '') {
   return text(QUANTITIES[q].words).transform((s, ctx): Reading => {
     const r = parseCell(s, q, unit);
     if (!r.ok) {
       ctx.addIssue({ code: 'custom', message: r.message });
+      return z.NEVER;
+    }
+    // an over-range reading's bound is a number the instrument showed: it too must be plausible
+    const problem = 'value' in r.reading ? implausible(field, r.reading.value, s) : null;
+    if (problem) {
+      ctx.addIssue({ code: 'custom', message: problem });
       return z.NEVER;
     }
     return r.reading;

@@ -112,7 +112,7 @@ export type ProjectRule = (file: ProjectFile, circuitKeys: ReadonlySet<string>) 
 export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], projectRules: readonly ProjectRule[] = [], opts: ValidateOptions = {}): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
-  errors.push(...yErrors);
+  for (const e of yErrors) errors.push(e);
 
   const circuits: CircuitRecord[] = [];
   const known = new Set<string>();
@@ -159,7 +159,7 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [],
       errors.push({ file: s.table.file, row: 1, column: 1, message: `test session dated ${s.date}, after today (${opts.today}); a readings file is named after the day its tests were done` });
     }
     const mapped = mapColumns(s.table, columns);
-    errors.push(...mapped.errors);
+    for (const e of mapped.errors) errors.push(e);
     const table = mapped.table;
     const seen = new Map<string, number>();
     const skip = new Set<number>();
@@ -223,8 +223,23 @@ function boardIds(job: RawJob): Set<string> | null {
   return new Set(boards.map((b) => String((b as { id?: unknown } | null)?.id ?? '')).filter((id) => id !== ''));
 }
 
+/** Errors shown per file: a file broken throughout says so once it has shown this many. */
+export const MAX_ERRORS_PER_FILE = 200;
+
 function sortErrors(errors: LocatedError[], job: RawJob): LocatedError[] {
   const order = ['project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
   const rank = (f: string) => (order.indexOf(f) === -1 ? order.length : order.indexOf(f));
-  return [...errors].sort((a, b) => rank(a.file) - rank(b.file) || a.row - b.row || a.column - b.column);
+  const sorted = [...errors].sort((a, b) => rank(a.file) - rank(b.file) || a.file.localeCompare(b.file) || a.row - b.row || a.column - b.column);
+  const shown: LocatedError[] = [];
+  const perFile = new Map<string, number>();
+  for (const e of sorted) {
+    const n = (perFile.get(e.file) ?? 0) + 1;
+    perFile.set(e.file, n);
+    if (n <= MAX_ERRORS_PER_FILE) shown.push(e);
+    else if (n === MAX_ERRORS_PER_FILE + 1) {
+      const more = sorted.filter((x) => x.file === e.file).length - MAX_ERRORS_PER_FILE;
+      shown.push({ ...e, message: `and ${more} more problem(s) in ${e.file} from here on; fix the ones above first (is it the right file?)` });
+    }
+  }
+  return shown;
 }
