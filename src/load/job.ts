@@ -4,6 +4,7 @@ import { readdirSync, readFileSync, existsSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
+import { readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
 const SESSION_NAME = /^(\d{4}-\d{2}-\d{2})(?:-([A-Za-z0-9][A-Za-z0-9_-]*))?\.csv$/;
@@ -14,7 +15,7 @@ export function readJob(dir: string): RawJob {
   const root = resolve(dir);
   const errors: LocatedError[] = [];
   const files = new Map<string, Buffer>();
-  const job: RawJob = { name: basename(root), dir: root, project: null, circuits: null, sessions: [], notes: null, files, errors };
+  const job: RawJob = { name: basename(root), dir: root, project: null, firm: null, circuits: null, sessions: [], notes: null, files, errors };
 
   if (!existsSync(root) || !statSync(root).isDirectory()) {
     errors.push({ file: dir, row: 1, column: 1, message: 'no job folder here; expected a folder holding project.yaml and circuits.csv' });
@@ -32,12 +33,21 @@ export function readJob(dir: string): RawJob {
   if (projectText === null) {
     errors.push({ file: 'project.yaml', row: 1, column: 1, message: 'file missing; every job needs a project.yaml (title, client, site, supply, boards)' });
   } else {
-    const { doc, errors: e } = readYaml('project.yaml', projectText);
-    job.project = doc;
+    const { doc: own, errors: e } = readYaml('project.yaml', projectText);
     errors.push(...e);
+    // the firm's settings beneath the job's own; the firm file is an input like the job's files
+    const firm = readFirm(root);
+    job.firm = firm;
+    if (firm) {
+      files.set(firm.file, firm.bytes);
+      errors.push(...firm.errors);
+    }
+    const doc = own && firm?.doc ? withFirm(own, firm, root) : own;
+    job.project = doc;
     const theme = (doc?.data as { theme?: unknown } | null)?.theme;
     if (doc && typeof theme === 'string' && theme.trim() !== '' && !isDirectory(resolve(root, theme.trim()))) {
-      errors.push({ ...doc.positionOf(['theme']), message: `theme: no folder "${theme}" (looked in ${resolve(root, theme.trim())}); expected a theme folder, relative to the job folder` });
+      const at = doc.positionOf(['theme']);
+      errors.push({ ...at, message: `theme: no folder "${theme}" (looked in ${resolve(root, theme.trim())}); expected a theme folder, relative to ${at.file === 'project.yaml' ? 'the job folder' : 'the folder of the firm file'}` });
     }
   }
 

@@ -1,10 +1,11 @@
 // Raw records → the validated Project. Every problem is collected (never only the first) and
 // located as file:row:column, in words a site electrician understands.
 import type { z } from 'zod';
-import type { LocatedError, RawJob, RawTable } from '../load/raw.js';
+import type { LocatedError, RawJob, RawTable, RawYaml } from '../load/raw.js';
+import { FirmFileSchema } from './firm.js';
 import {
   CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, CircuitSchema, ProjectFileSchema, READING_COLUMNS, readingRowSchema,
-  ReadingsSettingsSchema, type Circuit, type ProjectFile, type ReadingsSettings,
+  ReadingsSettingsSchema, CircuitsSettingsSchema, type Circuit, type ProjectFile, type ReadingsSettings,
 } from './schema.js';
 import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
@@ -33,25 +34,33 @@ function describe(issue: z.core.$ZodIssue): string {
   return issue.message;
 }
 
+/** Where the format is described, for messages (generated from these schemas: npm run docs). */
+export const FORMAT_DOC = 'docs/job-folder.md';
+
 function yamlErrors(job: RawJob): { file: ProjectFile | null; errors: LocatedError[] } {
-  const doc = job.project;
-  if (!doc) return { file: null, errors: [] };
-  const parsed = ProjectFileSchema.safeParse(doc.data);
-  if (parsed.success) return { file: parsed.data, errors: [] };
+  const firm = job.firm?.doc ? parseYaml(job.firm.doc, FirmFileSchema).errors : [];
+  if (!job.project) return { file: null, errors: firm };
+  const own = parseYaml(job.project, ProjectFileSchema);
+  return { file: own.data, errors: [...firm, ...own.errors] };
+}
+
+function parseYaml<S extends z.ZodType>(doc: RawYaml, schema: S): { data: z.output<S> | null; errors: LocatedError[] } {
+  const parsed = schema.safeParse(doc.data);
+  if (parsed.success) return { data: parsed.data, errors: [] };
   const errors: LocatedError[] = [];
   for (const issue of parsed.error.issues) {
     const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
     if (issue.code === 'unrecognized_keys') {
       for (const key of issue.keys) {
         const where = [...path, key].join('.');
-        errors.push({ ...doc.positionOf([...path, key]), message: `${where}: unknown field; check its spelling against CONTRACT.md` });
+        errors.push({ ...doc.positionOf([...path, key]), message: `${where}: unknown field; check its spelling against ${FORMAT_DOC}` });
       }
       continue;
     }
     const where = path.length > 0 ? `${path.join('.')}: ` : '';
     errors.push({ ...doc.positionOf(path), message: `${where}${describe(issue)}` });
   }
-  return { file: null, errors };
+  return { data: null, errors };
 }
 
 /** Parse every row of a table with a zod schema; unknown and missing columns reported once. */
@@ -104,7 +113,9 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
   const known = new Set<string>();
   const boards = boardIds(job);
   if (job.circuits) {
-    const table = job.circuits;
+    const mapped = mapColumns(job.circuits, circuitSettings(job, file).columns, CIRCUIT_COLUMNS, {});
+    errors.push(...mapped.errors);
+    const table = mapped.table;
     // Identity first, on the raw cells, so a row with other mistakes is still checked.
     const seen = new Map<string, number>();
     const duplicate = new Set<number>();
@@ -193,6 +204,14 @@ function readingSettings(job: RawJob, file: ProjectFile | null): ReadingsSetting
   return parsed.success ? parsed.data : { columns: {} };
 }
 
+/** The circuits settings of project.yaml, even when other parts of it are invalid. */
+function circuitSettings(job: RawJob, file: ProjectFile | null): { columns: Record<string, string> } {
+  if (file) return file.circuits;
+  const raw = (job.project?.data as { circuits?: unknown } | null)?.circuits;
+  const parsed = CircuitsSettingsSchema.safeParse(raw ?? {});
+  return parsed.success ? parsed.data : { columns: {} };
+}
+
 /** Board ids as written in project.yaml, even when other parts of it are invalid. */
 function boardIds(job: RawJob): Set<string> | null {
   const boards = (job.project?.data as { boards?: unknown } | null)?.boards;
@@ -200,8 +219,16 @@ function boardIds(job: RawJob): Set<string> | null {
   return new Set(boards.map((b) => String((b as { id?: unknown } | null)?.id ?? '')).filter((id) => id !== ''));
 }
 
+/** Every problem once (a firm file's value is checked as the firm's and as the job's), in file order. */
 function sortErrors(errors: LocatedError[], job: RawJob): LocatedError[] {
-  const order = ['project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
+  const order = [...(job.firm ? [job.firm.file] : []), 'project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
   const rank = (f: string) => (order.indexOf(f) === -1 ? order.length : order.indexOf(f));
-  return [...errors].sort((a, b) => rank(a.file) - rank(b.file) || a.row - b.row || a.column - b.column);
+  const seen = new Set<string>();
+  const once = errors.filter((e) => {
+    const k = `${e.file}:${e.row}:${e.column}: ${e.message}`;
+    if (seen.has(k)) return false;
+    seen.add(k);
+    return true;
+  });
+  return once.sort((a, b) => rank(a.file) - rank(b.file) || a.row - b.row || a.column - b.column);
 }
