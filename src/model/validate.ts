@@ -10,6 +10,7 @@ import {
 import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
 import { ratingProblem } from './device-rating.js';
+import { deviceHint } from './device-hint.js';
 
 export interface CircuitRecord extends Circuit {
   /** line of the circuit in circuits.csv */
@@ -71,6 +72,7 @@ function tableRows<S extends z.ZodType>(
   required: readonly string[],
   errors: LocatedError[],
   hint = '',
+  cellHint: (field: string, text: string) => string = () => '',
 ): { row: number; values: z.output<S> }[] {
   const headerRow = 1;
   const names = new Set(table.header.map((h) => h.text));
@@ -95,7 +97,8 @@ function tableRows<S extends z.ZodType>(
       const field = String(issue.path[0] ?? '');
       if (missing.includes(field)) continue; // already reported at the header
       const column = r.cells[field]?.column ?? table.header.find((h) => h.text === field)?.column ?? 1;
-      errors.push({ file: table.file, row: r.row, column, message: `${field}: ${describe(issue)}` });
+      const text = r.cells[field]?.text;
+      errors.push({ file: table.file, row: r.row, column, message: `${field}: ${describe(issue)}${text === undefined ? '' : cellHint(field, text)}` });
     }
   }
   return out;
@@ -138,7 +141,7 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
       (c) => { const m = ratingProblem(c.device, c.rating_a); return m ? { field: 'rating_a', message: m } : null; },
       ...circuitRules,
     ];
-    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors)) {
+    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors, '', circuitHint)) {
       const problems = rules.map((rule) => rule(values)).filter((p) => p !== null);
       const cells = table.rows.find((r) => r.row === row)?.cells;
       for (const p of problems) {
@@ -193,6 +196,9 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
     },
   };
 }
+
+/** A device written the usual ways ("B32", "C16 RCBO") gets a hint at its code and rating. */
+const circuitHint = (field: string, text: string): string => (field === 'device' ? deviceHint(text) : '');
 
 const MAP_HINT = '; an instrument\'s column is mapped onto one of these (or to "ignore") under readings.columns in project.yaml';
 

@@ -1,0 +1,32 @@
+// `packsmith check <job-folder> [--json]`: validate and assess one job, print the table or the JSON.
+// Exit 0 nothing failed or unverified; 1 a check failed or is not verified; 2 invalid input.
+import { parseArgs } from 'node:util';
+import { loadJob } from '../job.js';
+import { formatError } from '../load/raw.js';
+import { assessmentText } from '../render/text.js';
+import { missingFolder } from './folders.js';
+
+export function checkCommand(args: string[]): 0 | 1 | 2 {
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { json: { type: 'boolean' } } });
+  const dir = positionals[0]!;
+  const missing = missingFolder(dir, 'job folder');
+  if (missing) {
+    process.stderr.write(`${missing}\n`);
+    return 2;
+  }
+  const job = loadJob(dir);
+  if (!job.ok) {
+    for (const e of job.errors) process.stderr.write(`${formatError(e)}\n`);
+    process.stderr.write(`${job.errors.length} problem${job.errors.length === 1 ? '' : 's'} in ${job.raw.name}; nothing was assessed\n`);
+    if (values.json) process.stdout.write(`${JSON.stringify({ job: job.raw.name, errors: job.errors }, null, 2)}\n`);
+    return 2;
+  }
+  const a = job.assessment;
+  if (values.json) {
+    const { overrides, ...rules } = a.rules;
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary }, null, 2)}\n`);
+  } else {
+    process.stdout.write(assessmentText(a));
+  }
+  return a.summary.fail > 0 || a.summary['not-verified'] > 0 ? 1 : 0;
+}
