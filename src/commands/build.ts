@@ -14,16 +14,16 @@ export async function buildCommand(args: string[]): Promise<0 | 2> {
       theme: { type: 'string' }, paper: { type: 'string' },
     },
   });
+  const missing = positionals.map((j) => missingFolder(j, 'job folder')).filter((m) => m !== null);
+  if (missing.length > 0) {
+    for (const m of missing) process.stderr.write(`${m}\n`);
+    return 2;
+  }
   const { build, defaultJobs } = await import('../build.js');
   const { NO_CHROMIUM_HELP } = await import('../print/browser.js');
   const jobs = positionals.length ? positionals : defaultJobs();
   if (jobs.length === 0) {
     process.stderr.write('packsmith: no job folders given and none found under projects/\n');
-    return 2;
-  }
-  const missing = jobs.map((j) => missingFolder(j, 'job folder')).filter((m) => m !== null);
-  if (missing.length > 0) {
-    for (const m of missing) process.stderr.write(`${m}\n`);
     return 2;
   }
   const paper = values.paper === undefined ? undefined : PAPER.find((p) => p.toLowerCase() === values.paper!.toLowerCase());

@@ -5,6 +5,7 @@ import { loadJob } from '../job.js';
 import { formatError } from '../load/raw.js';
 import { assessmentText } from '../render/text.js';
 import { missingFolder } from './folders.js';
+import { placeholders } from './placeholders.js';
 
 export function checkCommand(args: string[]): 0 | 1 | 2 {
   const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { json: { type: 'boolean' } } });
@@ -28,5 +29,8 @@ export function checkCommand(args: string[]): 0 | 1 | 2 {
   } else {
     process.stdout.write(assessmentText(a));
   }
-  return a.summary.fail > 0 || a.summary['not-verified'] > 0 ? 1 : 0;
+  const unfilled = placeholders(job.raw.files.get('project.yaml')?.toString('utf8'));
+  for (const line of unfilled) process.stderr.write(`${line}\n`);
+  if (unfilled.length > 0) process.stderr.write(`${unfilled.length} value${unfilled.length === 1 ? '' : 's'} of project.yaml still to fill in: the job is not ready\n`);
+  return a.summary.fail > 0 || a.summary['not-verified'] > 0 || unfilled.length > 0 ? 1 : 0;
 }

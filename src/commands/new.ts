@@ -12,11 +12,12 @@ import { readFirm } from '../load/firm.js';
 import { readYaml } from '../load/yaml.js';
 import { CIRCUIT_REQUIRED, EARTHING } from '../model/schema.js';
 import { missingFolder } from './folders.js';
+import { FILL_IN } from './placeholders.js';
 
 /** The JSON Schema of project.yaml shipped with packsmith (schema/ beside dist/ and src/). */
 export const PROJECT_SCHEMA = fileURLToPath(new URL('../../schema/project.schema.json', import.meta.url));
 
-const FILL = 'FILL IN';
+const FILL = FILL_IN;
 
 const indent = (text: string, prefix: string): string =>
   text.trimEnd().split('\n').map((l) => `${prefix}${l}`).join('\n');
@@ -58,11 +59,11 @@ export function projectYaml(jobDir: string, from: { boards: unknown; circuits: u
     );
   }
   lines.push(
-    'dates:',
-    '  # started: YYYY-MM-DD',
-    '  # completed: YYYY-MM-DD',
+    '# dates:',
+    '#   started: YYYY-MM-DD',
+    '#   completed: YYYY-MM-DD',
     'supply:',
-    `  earthing: TN-C-S     # ${FILL}: the earthing system, one of ${EARTHING.join(', ')} (IT is refused: not assessed)`,
+    `  earthing: TN-C-S     # ${FILL}: the earthing system (${EARTHING.filter((e) => e !== 'IT').join(', ')}; IT is not assessed), then delete this comment`,
     '  u0_v: 230            # nominal voltage to earth, V',
     '  phases: 1            # 1 or 3',
     '  frequency_hz: 50',
@@ -130,6 +131,6 @@ export function newCommand(args: string[]): 0 | 2 {
   writeFileSync(join(dir, 'notes.md'), NOTES);
   const files = ['project.yaml', 'circuits.csv', 'readings/', 'notes.md'];
   process.stdout.write(`new job ${basename(resolve(dir))}:\n${files.map((f) => `  ${join(dir, f)}`).join('\n')}\n`);
-  process.stdout.write(`next: fill in project.yaml (each "${FILL}"), one row per circuit in circuits.csv, then packsmith check ${dir}\n`);
+  process.stdout.write(`next: fill in project.yaml (each "${FILL}"), one row per circuit in circuits.csv, then packsmith check ${dir} (it lists what is still to fill in)\n`);
   return 0;
 }
