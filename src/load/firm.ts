@@ -62,7 +62,13 @@ export function readFirm(jobDir: string): Firm | null {
 export function readFirmFile(path: string, shownAs = path): Firm {
   const abs = resolve(path);
   const dir = dirname(abs);
-  const bytes = readFileSync(abs);
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(abs);
+  } catch (err) {
+    const why = err instanceof Error ? err.message : String(err);
+    return { path: abs, dir, file: shownAs, bytes: Buffer.alloc(0), doc: null, errors: [{ file: shownAs, row: 1, column: 1, message: `cannot read the firm file: ${why}` }], archive: join(dir, 'archive'), public_key: null, publicKeyFile: null };
+  }
   const { doc, errors } = readYaml(shownAs, bytes.toString('utf8'));
   const data = (doc?.data ?? {}) as Record<string, unknown>;
   const archive = text(data.archive);
