@@ -23,6 +23,7 @@ function program(argv: string[], done: (code: Exit) => void): Command {
     .helpOption('-h, --help', 'show help for packsmith or a command')
     .addHelpText('after', EXIT_CODES)
     .showHelpAfterError('(add --help for usage)')
+    .configureOutput({ outputError: (text, write) => write(`packsmith: ${text.replace(/^error: /, '')}`) })
     .exitOverride()
     .allowExcessArguments(false);
 
