@@ -1,13 +1,32 @@
 // Inputs the calculation cannot work with: a size, method or condition outside the published
-// tables. They are input errors (the folder must be corrected), never guesses. Pure: validation
-// takes these rules and locates each problem in circuits.csv.
-import type { Circuit } from '../model/schema.js';
+// tables, a three-phase circuit on a single-phase supply, a device used above its rated voltage.
+// They are input errors (the folder must be corrected), never guesses. Pure: validation takes
+// these rules and locates each problem in circuits.csv.
+import type { Circuit, ProjectFile } from '../model/schema.js';
 import type { CircuitRule } from '../model/validate.js';
+import { fmt } from '../model/units.js';
+import { DEVICE_RATED_VOLTAGE } from '../reference/device-voltage.js';
 import { capacityOf } from './design/capacity.js';
+import { circuitVoltage } from './circuit-facts.js';
 
 export const outOfTable: CircuitRule = (c: Circuit) => {
   const cap = capacityOf(c);
   return cap.ok ? null : { field: cap.field, message: cap.message };
 };
 
-export const CALC_RULES: readonly CircuitRule[] = [outOfTable];
+export const phasesOnSupply: CircuitRule = (c: Circuit, file: ProjectFile | null) => {
+  if (!file || c.phases !== 3 || file.supply.phases !== 1) return null;
+  return { field: 'phases', message: 'found a three-phase circuit; project.yaml gives a single-phase supply (supply.phases: 1)' };
+};
+
+export const ratedVoltage: CircuitRule = (c: Circuit, file: ProjectFile | null) => {
+  if (!file) return null;
+  const rated = DEVICE_RATED_VOLTAGE[c.device];
+  const u0 = file.supply.u0_v;
+  const v = rated.against === 'earth' ? u0 : circuitVoltage(c.phases, u0);
+  if (v <= rated.max_v) return null;
+  const what = rated.against === 'earth' ? `U0 ${fmt(u0)} V to earth` : `${fmt(v)} V ${c.phases === 3 ? 'between lines' : '(U0)'}`;
+  return { field: 'device', message: `${c.device} is rated up to ${fmt(rated.max_v)} V (${rated.source}); this circuit is at ${what}` };
+};
+
+export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage];

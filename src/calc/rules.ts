@@ -1,74 +1,134 @@
-// The rule set: IEC 60364 values for 230/400 V systems, with the parameters a firm or a job may
-// override in project.yaml. The pack states the rule set and every override it used.
-import type { RuleOverrides, Supply } from '../model/schema.js';
-import { FINAL_CIRCUIT_LIMIT_A, TABLE_41_1, DISTRIBUTION_TN_S, DISTRIBUTION_TT_S } from '../reference/disconnection.js';
+// The rule set: its times, limits and which rules apply are data in src/reference/rule-sets/ (IEC
+// 60364 by default, BS 7671 on request; whatever a set does not say is IEC 60364's), with the
+// parameters a firm or a job may override in project.yaml. The pack states the set and every
+// override; an override less strict than the set's own value is a departure (departures.ts).
+import type { Circuit, RuleOverrides, Supply } from '../model/schema.js';
+import type { DeviceCode } from '../reference/device-codes.js';
+import { TABLE_41_1, DISTRIBUTION_TN_S, DISTRIBUTION_TT_S } from '../reference/disconnection.js';
+import { IEC_60364, RULE_SET_DATA, type AdditionalProtection, type Premises, type RuleSet, type RuleSetId } from '../reference/rule-sets/index.js';
+import { fmt } from '../model/units.js';
+import { hasSockets } from './circuit-facts.js';
+
+export interface DeviceRange {
+  breaking_ka?: number | undefined;
+  energy_class?: number | undefined;
+}
 
 export interface Rules {
-  set: 'iec-60364';
+  set: RuleSetId;
+  /** how the pack names the set, and its documents */
+  set_name: string;
+  set_source: string;
+  premises: Premises;
   u0_v: number;
   cmin: number;
   measured_zs_factor: number;
   vd_lighting_percent: number;
   vd_other_percent: number;
+  final_socket_limit_a: number;
+  final_fixed_limit_a: number;
+  /** the older single limit (kept for readers of 0.1 output): the fixed-equipment limit */
   final_circuit_limit_a: number;
+  final_circuit_clause: string;
   /** measured R1+R2 above expected × (1 + percent/100) + ohm is queried */
   r1r2_tolerance_percent: number;
   r1r2_tolerance_ohm: number;
+  additional_protection: AdditionalProtection;
+  /** the range of devices the job declares, by code */
+  devices: Partial<Record<DeviceCode, DeviceRange>>;
   /** the names of the parameters the job overrode */
   overrides: string[];
 }
 
-export const DEFAULT_RULES = {
-  // IEC 60909-0 Table 1 / CENELEC TR 50480: minimum voltage factor for LV fault currents
-  cmin: 0.95,
-  // allowance for conductor temperature rise in service (common practice)
-  measured_zs_factor: 0.8,
-  // IEC 60364-5-52 Annex G, Table G.52.1, public LV supply
-  vd_lighting_percent: 3,
-  vd_other_percent: 5,
-  final_circuit_limit_a: FINAL_CIRCUIT_LIMIT_A,
-  // measured R1+R2 well above what the cable explains: 25 % + 0.05 Ω (common practice)
-  r1r2_tolerance_percent: 25,
-  r1r2_tolerance_ohm: 0.05,
-} as const;
-
-export function resolveRules(supply: Supply, overrides: RuleOverrides): Rules {
-  const given = Object.entries(overrides).filter(([k, v]) => k !== 'set' && v !== undefined).map(([k]) => k);
+/** The set with everything it does not say filled in from IEC 60364. */
+export function ruleSet(id: RuleSetId): RuleSet {
+  const d = RULE_SET_DATA[id];
   return {
-    set: overrides.set,
+    ...IEC_60364,
+    ...d,
+    additional_protection: {
+      ...IEC_60364.additional_protection,
+      ...d.additional_protection,
+      clauses: { ...IEC_60364.additional_protection.clauses, ...d.additional_protection?.clauses },
+    },
+  };
+}
+
+/** The IEC 60364 values (the default set), for callers outside a job (the device command). */
+export const DEFAULT_RULES = IEC_60364;
+
+/** The parameters a job may override, each a number of the set. */
+export const OVERRIDABLE = [
+  'cmin', 'measured_zs_factor', 'vd_lighting_percent', 'vd_other_percent', 'final_socket_limit_a',
+  'final_fixed_limit_a', 'r1r2_tolerance_percent', 'r1r2_tolerance_ohm',
+] as const;
+export type Overridable = (typeof OVERRIDABLE)[number];
+
+export function resolveRules(supply: Supply, overrides: RuleOverrides, premises: Premises = 'dwelling'): Rules {
+  const set = ruleSet(overrides.set);
+  // the superseded single limit sets both limits, as it did
+  const old = overrides.final_circuit_limit_a;
+  const given: Partial<Record<Overridable, number>> = {
+    ...(old === undefined ? {} : { final_socket_limit_a: old, final_fixed_limit_a: old }),
+    ...Object.fromEntries(OVERRIDABLE.filter((k) => overrides[k] !== undefined).map((k) => [k, overrides[k]])),
+  };
+  const value = (k: Overridable): number => given[k] ?? set[k];
+  const named = Object.entries(overrides).filter(([k, v]) => k !== 'set' && k !== 'devices' && v !== undefined).map(([k]) => k);
+  return {
+    set: set.id,
+    set_name: set.name,
+    set_source: set.source,
+    premises,
     u0_v: supply.u0_v,
-    cmin: overrides.cmin ?? DEFAULT_RULES.cmin,
-    measured_zs_factor: overrides.measured_zs_factor ?? DEFAULT_RULES.measured_zs_factor,
-    vd_lighting_percent: overrides.vd_lighting_percent ?? DEFAULT_RULES.vd_lighting_percent,
-    vd_other_percent: overrides.vd_other_percent ?? DEFAULT_RULES.vd_other_percent,
-    final_circuit_limit_a: overrides.final_circuit_limit_a ?? DEFAULT_RULES.final_circuit_limit_a,
-    r1r2_tolerance_percent: overrides.r1r2_tolerance_percent ?? DEFAULT_RULES.r1r2_tolerance_percent,
-    r1r2_tolerance_ohm: overrides.r1r2_tolerance_ohm ?? DEFAULT_RULES.r1r2_tolerance_ohm,
-    overrides: given,
+    cmin: value('cmin'),
+    measured_zs_factor: value('measured_zs_factor'),
+    vd_lighting_percent: value('vd_lighting_percent'),
+    vd_other_percent: value('vd_other_percent'),
+    final_socket_limit_a: value('final_socket_limit_a'),
+    final_fixed_limit_a: value('final_fixed_limit_a'),
+    final_circuit_limit_a: value('final_fixed_limit_a'),
+    final_circuit_clause: set.final_circuit_clause,
+    r1r2_tolerance_percent: value('r1r2_tolerance_percent'),
+    r1r2_tolerance_ohm: value('r1r2_tolerance_ohm'),
+    additional_protection: set.additional_protection,
+    devices: overrides.devices ?? {},
+    overrides: named,
   };
 }
 
 export interface RequiredTime {
   seconds: number;
   basis: string;
+  /** the time of the set's own rule, without a circuit's disconnect_s */
+  table_s: number;
 }
 
 /** The disconnection time a circuit must meet, and why. */
 export function requiredDisconnection(
   earthing: Supply['earthing'],
   u0: number,
-  ratingA: number,
+  circuit: Pick<Circuit, 'rating_a' | 'kind' | 'sockets' | 'disconnect_s'>,
   rules: Rules,
-  circuitOverride?: number,
 ): RequiredTime {
-  if (circuitOverride !== undefined) return { seconds: circuitOverride, basis: `${circuitOverride} s set for this circuit` };
+  const own = tableTime(earthing, u0, circuit, rules);
+  if (circuit.disconnect_s !== undefined) {
+    return { seconds: circuit.disconnect_s, table_s: own.seconds, basis: `${fmt(circuit.disconnect_s)} s set for this circuit (the rule set's own: ${own.basis})` };
+  }
+  return { ...own, table_s: own.seconds };
+}
+
+function tableTime(earthing: Supply['earthing'], u0: number, circuit: Pick<Circuit, 'rating_a' | 'kind' | 'sockets'>, rules: Rules): { seconds: number; basis: string } {
   const tt = earthing === 'TT';
-  if (ratingA > rules.final_circuit_limit_a) {
+  const sockets = hasSockets(circuit);
+  const limit = sockets ? rules.final_socket_limit_a : rules.final_fixed_limit_a;
+  const what = sockets ? 'final circuit with socket-outlets' : 'final circuit for fixed equipment';
+  const clause = rules.final_circuit_clause;
+  if (circuit.rating_a > limit) {
     const s = tt ? DISTRIBUTION_TT_S : DISTRIBUTION_TN_S;
-    return { seconds: s, basis: `${s} s: circuit above ${rules.final_circuit_limit_a} A (IEC 60364-4-41, 411.3.2.3/411.3.2.4)` };
+    return { seconds: s, basis: `${s} s: ${what} above ${fmt(limit)} A (${clause}; 411.3.2.3/411.3.2.4)` };
   }
   const band = TABLE_41_1.find((b) => u0 > b.u0_above_v && u0 <= b.u0_upto_v);
   if (!band) return { seconds: tt ? DISTRIBUTION_TT_S : DISTRIBUTION_TN_S, basis: `U0 ${u0} V is outside IEC 60364-4-41 Table 41.1` };
   const s = tt ? band.tt_s : band.tn_s;
-  return { seconds: s, basis: `${s} s: final circuit, ${tt ? 'TT' : 'TN'}, U0 ${u0} V (IEC 60364-4-41 Table 41.1)` };
+  return { seconds: s, basis: `${s} s: ${what} up to ${fmt(limit)} A, ${tt ? 'TT' : 'TN'}, U0 ${u0} V (Table 41.1; ${clause})` };
 }

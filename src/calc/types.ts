@@ -5,6 +5,7 @@ import type { CircuitReadings } from '../model/readings.js';
 import type { Rules } from './rules.js';
 import type { Design } from './design/index.js';
 import type { DesignFault } from './design/fault.js';
+import type { Departure } from './departures.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
 export type Status = (typeof STATUSES)[number];
@@ -12,6 +13,7 @@ export type Status = (typeof STATUSES)[number];
 export const CHECK_IDS = [
   'overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity',
   'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt',
+  'additional-protection', 'cpc-size',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 
@@ -82,4 +84,6 @@ export interface Assessment {
   rules: Rules;
   circuits: CircuitAssessment[];
   summary: Summary;
+  /** rule values less strict than the rule set's own, each with the circuits it affects */
+  departures: Departure[];
 }

@@ -25,7 +25,7 @@ export function checkCommand(args: string[]): 0 | 1 | 2 {
   const a = job.assessment;
   if (values.json) {
     const { overrides, ...rules } = a.rules;
-    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary }, null, 2)}\n`);
+    process.stdout.write(`${JSON.stringify({ job: a.job, rules: { ...rules, overrides }, circuits: a.circuits, summary: a.summary, departures: a.departures }, null, 2)}\n`);
   } else {
     process.stdout.write(assessmentText(a));
   }

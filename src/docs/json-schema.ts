@@ -47,7 +47,10 @@ export function cellSchema(form: CellForm): JsonSchema {
 /** The form of a cell, through a default and a transform after it (yesNo, phases). */
 function formOf(zs: z.ZodType): CellForm | undefined {
   let s: z.ZodType = zs instanceof z.ZodDefault ? (zs.unwrap() as z.ZodType) : zs;
-  if (!CELL_FORMS.has(s) && s instanceof z.ZodPipe) s = s.in as z.ZodType;
+  if (!CELL_FORMS.has(s) && s instanceof z.ZodPipe) {
+    const out = s._zod.def.out as unknown as z.ZodType;
+    s = CELL_FORMS.has(out) ? out : (s.in as z.ZodType);
+  }
   return CELL_FORMS.get(s);
 }
 

@@ -15,6 +15,8 @@ export type CellForm =
 export const CELL_FORMS = z.registry<CellForm>();
 const described = <S extends z.ZodType>(schema: S, form: CellForm): S => {
   CELL_FORMS.add(schema, form);
+  // a refinement (.refine) clones the pipe but keeps its last stage: register that too
+  if (schema instanceof z.ZodPipe) CELL_FORMS.add(schema._zod.def.out as z.ZodType, form);
   return schema;
 };
 

@@ -2,6 +2,7 @@
 // Field names, defaults and choices follow CONTRACT.md.
 import { z } from 'zod';
 import { DEVICE_CODES } from '../reference/device-codes.js';
+import { RULE_SET_IDS } from '../reference/rule-sets/index.js';
 import { choice, quantity, reading, word, yesNo } from './cells.js';
 import type { Quantity } from './units.js';
 
@@ -75,23 +76,44 @@ const isoDate = word('a date as YYYY-MM-DD').refine((s) => /^\d{4}-\d{2}-\d{2}$/
 export const EARTHING = ['TN-S', 'TN-C-S', 'TT', 'IT'] as const;
 
 export const SupplySchema = z.strictObject({
-  earthing: choice(EARTHING, 'the earthing system'),
+  // IT is a known word but refused until its rules (IEC 60364-4-41, 411.6) are built: never assessed as TN
+  earthing: choice(EARTHING, 'the earthing system').refine((e) => e !== 'IT', {
+    error: 'found "IT": IT systems are not assessed (IEC 60364-4-41, 411.6 is not built); packsmith assesses TN-S, TN-C-S and TT',
+  }),
   u0_v: quantity('volt', { positive: true }).default(230),
   phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
   frequency_hz: z.number({ error: 'expected the frequency in Hz, e.g. 50' }).default(50),
   ze_ohm: quantity('ohm').optional(),
   pfc_ka: quantity('kiloampere').optional(),
+  /** three-phase prospective fault current at the origin, where measured or given (else ≈ 2 × pfc_ka) */
+  pfc_3ph_ka: quantity('kiloampere').optional(),
   ra_ohm: quantity('ohm').optional(),
   main_switch: word('the main switch, e.g. "100 A 2-pole"').optional(),
 });
 
+/** The range of devices a job (or firm) uses, as their maker states: per device code. */
+export const DeviceRangeSchema = z.strictObject({
+  /** rated breaking capacity (Icn) of the devices of this code that the job uses */
+  breaking_ka: quantity('kiloampere', { positive: true }).optional(),
+  /** energy limiting class (1, 2 or 3) marked on type B and C circuit-breakers (BS EN 60898-1 Annex ZA) */
+  energy_class: choice(['1', '2', '3'] as const, 'an energy limiting class').transform(Number).optional(),
+});
+
 export const RulesSchema = z.strictObject({
-  set: choice(['iec-60364'] as const, 'a rule set').default('iec-60364'),
-  cmin: z.number({ error: 'expected the voltage factor Cmin, e.g. 0.95' }).min(0.5).max(1.1).optional(),
+  set: choice(RULE_SET_IDS, 'a rule set').default('iec-60364'),
+  cmin: z.number({ error: 'expected the voltage factor Cmin, e.g. 0.95' }).min(0.5)
+    .max(1, { error: 'Cmin above 1.0 is not a minimum voltage factor (IEC 60909-0 Table 1 gives 0.95 for LV); expected at most 1.0' }).optional(),
   measured_zs_factor: z.number({ error: 'expected a factor for measured Zs, e.g. 0.8' }).gt(0).max(1).optional(),
   vd_lighting_percent: z.number().gt(0).max(20).optional(),
   vd_other_percent: z.number().gt(0).max(20).optional(),
+  /** superseded by the two limits below; where given it sets both (as before) */
   final_circuit_limit_a: z.number().gt(0).optional(),
+  /** final circuits with socket-outlets up to this rating take Table 41.1 (411.3.2.2: 63 A) */
+  final_socket_limit_a: z.number().gt(0).optional(),
+  /** final circuits supplying only fixed equipment up to this rating take Table 41.1 (411.3.2.2: 32 A) */
+  final_fixed_limit_a: z.number().gt(0).optional(),
+  /** the range of devices the job uses, by device code: breaking capacity, energy limiting class */
+  devices: z.partialRecord(choice(DEVICE_CODES, 'a device code'), DeviceRangeSchema).optional(),
   r1r2_tolerance_percent: z.number({ error: 'expected a percentage, e.g. 25' }).min(0).max(100).optional(),
   r1r2_tolerance_ohm: z.number({ error: 'expected a resistance in ohms, e.g. 0.05' }).min(0).max(1).optional(),
 });
@@ -101,7 +123,11 @@ export const BoardSchema = z.strictObject({
   location: word('where the board is').optional(),
   zdb_ohm: quantity('ohm').optional(),
   pfc_ka: quantity('kiloampere').optional(),
+  /** three-phase prospective fault current at the board, where measured or given */
+  pfc_3ph_ka: quantity('kiloampere').optional(),
 });
+
+export const PREMISES = ['dwelling', 'other'] as const;
 
 export const PAPER = ['A4', 'Letter'] as const;
 export type Paper = (typeof PAPER)[number];
@@ -122,6 +148,8 @@ export const ProjectFileSchema = z.strictObject({
   }),
   dates: z.strictObject({ started: isoDate.optional(), completed: isoDate.optional() }).default({}),
   supply: SupplySchema,
+  /** dwelling (default: the stricter rules apply) or other premises */
+  premises: choice(PREMISES, 'the kind of premises').default('dwelling'),
   rules: RulesSchema.default({ set: 'iec-60364' }),
   boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' }),
   readings: ReadingsSettingsSchema.default({ columns: {} }),
@@ -168,9 +196,18 @@ export const CircuitSchema = z.object({
   // absent: the capacity table's reference, 30 °C air (20 °C ground for method D)
   ambient_c: quantity('celsius').optional(),
   grouped: quantity('count', { min: 1 }).default(1),
-  insulation_mm: quantity('metre').default(0),
+  // millimetres, as its name says: "0.6 m" is 600 mm
+  insulation_mm: quantity('millimetre').default(0),
   ring: yesNo('whether this is a ring final circuit').default(false),
   disconnect_s: quantity('second', { positive: true }).optional(),
+  /** absent: yes for kind power, else no (see calc/circuit-facts.ts) */
+  sockets: yesNo('whether the circuit supplies socket-outlets').optional(),
+  outdoors: yesNo('whether it supplies equipment used outdoors').default(false),
+  concealed: yesNo('whether its cable is concealed less than 50 mm deep without earthed covering or protection').default(false),
+  rcd_exemption: z.string().optional(),
+  cpc_protected: yesNo('whether the separate cpc is mechanically protected').default(false),
+  let_through_a2s: quantity('ampere2second', { positive: true }).optional(),
+  device_ia_a: quantity('ampere', { positive: true }).optional(),
   notes: z.string().optional(),
 });
 

@@ -16,6 +16,8 @@ export type Quantity =
   | 'second'
   | 'mm2'
   | 'metre'
+  | 'millimetre'
+  | 'ampere2second'
   | 'celsius'
   | 'count';
 
@@ -66,7 +68,16 @@ export const QUANTITIES: Record<Quantity, QuantityInfo> = {
   millisecond: { words: 'a time in milliseconds', symbol: 'ms', units: { ms: 1 }, nonNegative: true },
   second: { words: 'a time in seconds', symbol: 's', units: { s: 1, ms: 0.001 }, nonNegative: true },
   mm2: { words: 'a cross-section in mm²', symbol: 'mm²', units: { 'mm²': 1, mm2: 1 }, nonNegative: true },
-  metre: { words: 'a length in metres', symbol: 'm', units: { m: 1 }, nonNegative: true },
+  // A field's unit is the one its name says (length_m in metres, insulation_mm in millimetres); a
+  // length written in another unit of length is converted, so "0.6 m" in a _mm field is 600 mm.
+  metre: { words: 'a length in metres', symbol: 'm', units: { m: 1, mm: 0.001, cm: 0.01, km: 1000 }, nonNegative: true },
+  millimetre: { words: 'a length in millimetres', symbol: 'mm', units: { mm: 1, cm: 10, m: 1000 }, nonNegative: true },
+  ampere2second: {
+    words: 'an energy (let-through I²t) in A²s',
+    symbol: 'A²s',
+    units: { 'A²s': 1, A2s: 1, 'a²s': 1, a2s: 1, 'kA²s': 1e6, kA2s: 1e6, 'ka²s': 1e6, ka2s: 1e6 },
+    nonNegative: true,
+  },
   celsius: { words: 'a temperature in °C', symbol: '°C', units: { '°C': 1, C: 1, degC: 1 }, nonNegative: false },
   count: { words: 'a whole number', symbol: '', units: {}, nonNegative: true },
 };
@@ -130,7 +141,8 @@ export function parseCell(text: string, quantity: Quantity, columnUnit = ''): Ce
 function example(q: Quantity): string {
   const samples: Record<Quantity, string> = {
     ohm: '0.84', megohm: '250', volt: '500', ampere: '32', milliampere: '30', kiloampere: '6',
-    millisecond: '28', second: '0.4', mm2: '2.5', metre: '18', celsius: '30', count: '1',
+    millisecond: '28', second: '0.4', mm2: '2.5', metre: '18', millimetre: '100', ampere2second: '18000',
+    celsius: '30', count: '1',
   };
   return samples[q];
 }

@@ -104,8 +104,11 @@ function tableRows<S extends z.ZodType>(
   return out;
 }
 
-/** A further rule on a valid circuit row (e.g. the calculation's tables), injected by the caller. */
-export type CircuitRule = (circuit: Circuit) => { field: string; message: string } | null;
+/**
+ * A further rule on a valid circuit row (e.g. the calculation's tables), injected by the caller;
+ * `file` is the valid project.yaml, where it is valid, for rules that compare the two.
+ */
+export type CircuitRule = (circuit: Circuit, file: ProjectFile | null) => { field: string; message: string } | null;
 
 export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = []): Validation {
   const errors: LocatedError[] = [...job.errors];
@@ -142,7 +145,7 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
       ...circuitRules,
     ];
     for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors, '', circuitHint)) {
-      const problems = rules.map((rule) => rule(values)).filter((p) => p !== null);
+      const problems = rules.map((rule) => rule(values, file)).filter((p) => p !== null);
       const cells = table.rows.find((r) => r.row === row)?.cells;
       for (const p of problems) {
         const column = cells?.[p.field]?.column ?? table.header.find((h) => h.text === p.field)?.column ?? 1;

@@ -17,3 +17,9 @@ export const INSULATION_MINIMUMS: readonly InsulationBand[] = [
 
 /** A reading below this is queried even when it meets the minimum (common practice). */
 export const INSULATION_QUERY_BELOW_MOHM = 2;
+
+/**
+ * Where surge protective devices or other equipment cannot be disconnected, a circuit up to 500 V
+ * may be tested at 250 V d.c.; the minimum is then 1 MΩ (BS 7671 643.3; IEC 60364-6, 6.4.3.3).
+ */
+export const REDUCED_TEST = { test_v: 250, min_mohm: 1.0, for_band_test_v: 500, clause: 'BS 7671 643.3; IEC 60364-6, 6.4.3.3' } as const;

@@ -87,12 +87,13 @@ const READING_NAMES: Record<MeasuredField | 'polarity' | 'rcd_button', { label: 
   rcd_button: { label: 'RCD test button', check: 'rcd' },
 };
 
-const RULE_LABELS: { key: 'cmin' | 'measured_zs_factor' | 'vd_lighting_percent' | 'vd_other_percent' | 'final_circuit_limit_a'; label: string; unit: string }[] = [
+const RULE_LABELS: { key: 'cmin' | 'measured_zs_factor' | 'vd_lighting_percent' | 'vd_other_percent' | 'final_socket_limit_a' | 'final_fixed_limit_a'; label: string; unit: string }[] = [
   { key: 'cmin', label: 'Voltage factor Cmin', unit: '' },
   { key: 'measured_zs_factor', label: 'Factor on max Zs for measured Zs', unit: '' },
   { key: 'vd_lighting_percent', label: 'Voltage drop limit, lighting', unit: '%' },
   { key: 'vd_other_percent', label: 'Voltage drop limit, other uses', unit: '%' },
-  { key: 'final_circuit_limit_a', label: 'Largest final circuit with the final-circuit time', unit: 'A' },
+  { key: 'final_socket_limit_a', label: 'Largest socket-outlet final circuit with the final-circuit time', unit: 'A' },
+  { key: 'final_fixed_limit_a', label: 'Largest fixed-equipment final circuit with the final-circuit time', unit: 'A' },
 ];
 
 const look = (s: Status) => ({ status: s, ...STATUS_LOOK[s] });
@@ -247,12 +248,15 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     },
     rules: {
       set: assessment.rules.set,
+      setName: assessment.rules.set_name,
+      setSource: assessment.rules.set_source,
+      premises: assessment.rules.premises,
       u0_v: assessment.rules.u0_v,
       params: RULE_LABELS.map((p) => ({
         label: p.label,
         value: assessment.rules[p.key],
         unit: p.unit,
-        overridden: overrides.includes(p.key),
+        overridden: overrides.includes(p.key) || (overrides.includes('final_circuit_limit_a') && p.key.startsWith('final_')),
       })),
       circuitOverrides,
       anyOverride: overrides.length > 0 || circuitOverrides.length > 0,
@@ -265,6 +269,7 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     overall: look(overallStatus(assessment)),
     summary: (Object.keys(STATUS_LOOK) as Status[]).map((s) => ({ count: assessment.summary[s], look: look(s) })),
     openItems,
+    departures: assessment.departures.map((d) => ({ basis: d.basis, circuits: d.circuits.join(', ') })),
     boards,
     sessions: project.sessions,
     notesHtml: project.notes ? markdownToHtml(project.notes, { topLevel: 3 }) : null,

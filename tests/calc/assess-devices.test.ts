@@ -14,7 +14,7 @@ describe('assess: max Zs, fault current and disconnection time from the device l
   const a = assess(v.project);
   const circuit = (board: string, ref: string) => a.circuits.find((c) => c.board === board && c.ref === ref)!;
 
-  it('gives every circuit of the demo, breakers and fuses alike, a max Zs', () => {
+  it('gives every circuit of the demo, breakers and fuses alike, a max Zs (BS 88-3 from the maker\'s device_ia_a)', () => {
     for (const c of a.circuits) expect(c.derived.max_zs_ohm, `${c.board}/${c.ref}`).not.toBeNull();
   });
   it('a BS 3036 30 A final circuit: 1.09 Ω × 0.95 at 0.4 s', () => {

@@ -17,8 +17,8 @@ const slowest = (d: Device, i: number) => operatingTime(d, i).slowest_s ?? Infin
 const close = (a: number, b: number, rel: number) => Math.abs(a - b) <= rel * Math.abs(b);
 
 describe('device characteristics (properties, fast-check)', () => {
-  it('covers every family', () => {
-    expect(new Set(known.map((d) => d.code))).toEqual(new Set(DEVICE_CODES));
+  it('covers every family with a published characteristic (BS 88-3 has none: REFERENCE.md withdraws its one point)', () => {
+    expect(new Set(known.map((d) => d.code))).toEqual(new Set(DEVICE_CODES.filter((c) => c !== 'fuse:bs88-3')));
   });
 
   it('operating time never increases as the current rises (both edges)', () => {

@@ -66,11 +66,13 @@ describe('continuity: measured R1+R2 against the cable', () => {
     expect(strict.status).toBe('attention'); // 0.40 × 1.10 + 0.05 = 0.49 Ω
   });
   it('fails when Ze + R1+R2 exceeds max Zs, even before the expected value is known', () => {
-    // B32: max Zs 230 × 0.95 / 160 = 1.366 Ω (IEC 60898-1 band, BS 7671 Table 41.3: 1.37 Ω)
-    expect(cont('1.09', null).status).toBe('fail'); // 0.28 + 1.09 = 1.37 Ω > 1.366 Ω
-    expect(cont('1.08', 1.0).status).toBe('pass'); // 1.36 Ω ≤ 1.366 Ω, and within the cable's tolerance
+    // B32: max Zs 230 × 0.95 / 160 = 1.366 Ω (IEC 60898-1 band, BS 7671 Table 41.3: 1.37 Ω). The cold
+    // reading is raised to 70 °C by 1 + 0.00393 × 50 = 1.1965 (IEC 60287-1-1) before the comparison
+    expect(cont('1.09', null).status).toBe('fail'); // 0.28 + 1.09 × 1.1965 = 1.58 Ω > 1.366 Ω
+    expect(cont('0.91', null).status).toBe('fail'); // 0.28 + 0.91 × 1.1965 = 1.369 Ω > 1.366 Ω
+    expect(cont('0.90', 0.8).status).toBe('pass'); // 0.28 + 0.90 × 1.1965 = 1.357 Ω ≤ 1.366 Ω, within the cable's tolerance
     const sub = continuity(context({}, { r1r2_ohm: '0.87' }, ze, 0.4, { ...expect20(0.7), board: { zdb_ohm: '0.5' } }));
-    expect(sub.status).toBe('fail'); // the board's Zdb is used: 0.5 + 0.87 = 1.37 Ω
+    expect(sub.status).toBe('fail'); // the board's Zdb is used: 0.5 + 0.87 × 1.1965 = 1.54 Ω
     expect(sub.basis).toMatch(/Zdb 0\.5 Ω at DB1/);
   });
   it('is not verified when the expected R1+R2, Ze or the reading is missing', () => {

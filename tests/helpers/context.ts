@@ -1,6 +1,6 @@
 // Build a CircuitContext for a check from a few fields, the rest defaulted through the real
 // schemas (so a test's circuit is exactly what circuits.csv would give).
-import { BoardSchema, CircuitSchema, ReadingRowSchema, SupplySchema } from '../../src/model/schema.js';
+import { BoardSchema, CircuitSchema, ReadingRowSchema, RulesSchema, SupplySchema } from '../../src/model/schema.js';
 import { mergeSessions, type SessionRow } from '../../src/model/readings.js';
 import { resolveRules } from '../../src/calc/rules.js';
 import { circuitContext } from '../../src/calc/assess.js';
@@ -14,6 +14,8 @@ export interface Extra {
   board?: Record<string, unknown>;
   /** rule-set overrides, as under rules: in project.yaml */
   rules?: Record<string, unknown>;
+  /** project.yaml premises (default dwelling) */
+  premises?: 'dwelling' | 'other';
 }
 
 const row = (date: string, readings: Record<string, string>, n = 2): SessionRow => ({
@@ -26,7 +28,7 @@ function build(circuit: Record<string, string>, rows: SessionRow[], supply: Reco
     live_mm2: '2.5', cpc_mm2: '1.5', length_m: '20', method: 'C', ...(required === undefined ? {} : { disconnect_s: String(required) }), ...circuit,
   });
   const s = SupplySchema.parse({ earthing: 'TN-C-S', ...supply });
-  const rules = resolveRules(s, { set: 'iec-60364', ...extra.rules });
+  const rules = resolveRules(s, RulesSchema.parse({ set: 'iec-60364', ...extra.rules }), extra.premises ?? 'dwelling');
   const ctx = circuitContext({ ...c, row: 2 }, BoardSchema.parse({ id: 'DB1', ...extra.board }), s, rules, mergeSessions(rows).get('DB1/1') ?? {});
   return { ...ctx, derived: { ...ctx.derived, ...extra.derived } as Derived };
 }

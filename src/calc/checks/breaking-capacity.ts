@@ -1,22 +1,31 @@
-// Breaking capacity: the prospective fault current at the board (measured there, else the one at
-// the origin, which is no lower) must not exceed the device's rated breaking capacity
-// (IEC 60364-4-43, 434.5.1). Where circuits.csv gives none, the family's usual capacity is taken
-// and the basis says so.
+// Breaking capacity: the prospective fault current at the board (fault-level.ts: the three-phase
+// value for a three-phase circuit) must not exceed the device's rated breaking capacity
+// (IEC 60364-4-43, 434.5.1). The capacity is the circuit's breaking_ka; without it, the capacity the
+// job declares for the devices of this code (rules.devices) is an assumption, printed, and the
+// verdict is at best `attention`; with neither it is not verified — never a capacity guessed.
 import type { Check } from '../types.js';
-import { deviceFamily } from '../devices/index.js';
 import { fmt } from '../../model/units.js';
+import { breakingLevel } from '../fault-level.js';
 import { notVerified, result } from './result.js';
 
-export const breakingCapacity: Check = ({ circuit, board, supply }) => {
-  const id = 'breaking-capacity';
-  const pfc = board.pfc_ka ?? supply.pfc_ka;
-  if (pfc === undefined) return notVerified(id, `no prospective fault current recorded for ${board.id} or at the origin`);
-  const where = board.pfc_ka !== undefined ? `at ${board.id}` : `at the origin (none recorded for ${board.id}; it is no lower upstream)`;
+const id = 'breaking-capacity';
+const RULE = 'IEC 60364-4-43, 434.5.1';
+
+export const breakingCapacity: Check = ({ circuit, board, supply, rules }) => {
+  const level = breakingLevel(circuit, board, supply);
+  if (!level) return notVerified(id, `no prospective fault current recorded for ${board.id} or at the origin`);
+  const ka = level.amps / 1000;
+  const numbers = (limit: number) => ({ value: Number(ka.toFixed(3)), limit, unit: 'kA' });
   const given = circuit.breaking_ka;
-  const capacity = given ?? deviceFamily(circuit.device).breaking_ka;
-  const whose = given !== undefined ? `rated ${fmt(capacity)} kA` : `${fmt(capacity)} kA, the usual capacity of ${circuit.device} (breaking_ka not given)`;
-  const ok = pfc <= capacity;
-  return result(id, ok ? 'pass' : 'fail', `prospective fault current ${fmt(pfc)} kA ${where} ${ok ? '≤' : '>'} breaking capacity ${whose} (IEC 60364-4-43, 434.5.1)`, {
-    value: pfc, limit: capacity, unit: 'kA',
-  });
+  if (given !== undefined) {
+    const ok = ka <= given;
+    return result(id, ok ? 'pass' : 'fail', `${level.basis} ${ok ? '≤' : '>'} rated breaking capacity ${fmt(given)} kA (${RULE})`, numbers(given));
+  }
+  const declared = rules.devices[circuit.device]?.breaking_ka;
+  if (declared === undefined) {
+    return result(id, 'not-verified', `${level.basis}; the device's rated breaking capacity is not recorded (breaking_ka in circuits.csv, or rules.devices in project.yaml)`, { value: Number(ka.toFixed(3)), unit: 'kA' });
+  }
+  const ok = ka <= declared;
+  return result(id, ok ? 'attention' : 'fail',
+    `${level.basis} ${ok ? '≤' : '>'} ${fmt(declared)} kA, assumed from the range of devices the job declares for ${circuit.device} (rules.devices; breaking_ka not given for this circuit) (${RULE})`, numbers(declared));
 };

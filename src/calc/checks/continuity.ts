@@ -3,11 +3,15 @@
 // temperature: a test at 10 °C reads about 4 % lower, well inside the tolerance). Well above it —
 // beyond the rule set's tolerance, 25 % + 0.05 Ω by default (common practice) — is `attention`:
 // a poor joint or a longer route than recorded. Measured Ze (or the board's Zdb) + R1+R2 above
-// the fault protection limit is a `fail`. No test temperature is read: a missing one could only
+// the fault protection limit is a `fail`; the reading is taken cold, so it is first raised to the
+// conductor's temperature in service by the resistance ratio R(θ)/R(20 °C) = 1 + α (θ − 20)
+// (IEC 60287-1-1 α; θ the insulation's maximum operating temperature), never compared cold with
+// the hot limit. No test temperature is read: a missing one could only
 // loosen the query, and a missing reading must never move a verdict towards a pass.
 import type { Check } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
+import { ALPHA20_PER_K, OPERATING_TEMP_C } from '../../reference/conductors.js';
 import { numberOf, result, shown, unusable } from './result.js';
 
 const id = 'continuity';
@@ -27,12 +31,15 @@ export const continuity: Check = (ctx) => {
   const fp = faultProtection(ctx);
   const ze = board.zdb_ohm ?? supply.ze_ohm;
   const zeWords = board.zdb_ohm !== undefined ? `Zdb ${fmt(board.zdb_ohm)} Ω at ${board.id}` : `Ze ${fmt(ze ?? 0)} Ω`;
+  const theta = OPERATING_TEMP_C[ctx.circuit.insulation];
+  const ratio = 1 + ALPHA20_PER_K[ctx.circuit.conductor] * (theta - 20);
+  const hot = `R1+R2 × ${fmt(ratio)} (resistance ratio ${theta} °C / 20 °C, IEC 60287-1-1)`;
   if (ze !== undefined && fp.limit_ohm !== null) {
-    const loop = ze + r.value;
+    const loop = ze + r.value * ratio;
     // ">N" is above N: at or beyond the limit it is a fail
     if (loop > fp.limit_ohm || (r.kind === 'at-least' && loop >= fp.limit_ohm)) {
-      return result(id, 'fail', `${zeWords} + ${measured} = ${r.kind === 'at-least' ? '>' : ''}${fmt(loop)} Ω > ${fmt(fp.limit_ohm)} Ω (${fp.basis})`,
-        { ...reading, limit: round(fp.limit_ohm - ze) });
+      return result(id, 'fail', `${zeWords} + ${measured} × ${fmt(ratio)} (resistance ratio ${theta} °C / 20 °C, IEC 60287-1-1) = ${r.kind === 'at-least' ? '>' : ''}${fmt(loop)} Ω > ${fmt(fp.limit_ohm)} Ω (${fp.basis})`,
+        { ...reading, limit: round((fp.limit_ohm - ze) / ratio) });
     }
   }
   const expected = ctx.derived.r1r2_expected_ohm ?? null;
@@ -43,7 +50,7 @@ export const continuity: Check = (ctx) => {
   // The cable: the expected value with the tolerance.
   const bound = expected * (1 + rules.r1r2_tolerance_percent / 100) + rules.r1r2_tolerance_ohm;
   const tolerance = `expected ${fmt(expected)} Ω at 20 °C + ${rules.r1r2_tolerance_percent} % + ${rules.r1r2_tolerance_ohm} Ω = ${fmt(bound)} Ω (common practice)`;
-  const loop = `${zeWords} + R1+R2 = ${fmt(ze + r.value)} Ω ≤ ${fmt(fp.limit_ohm)} Ω`;
+  const loop = `${zeWords} + ${hot} = ${fmt(ze + r.value * ratio)} Ω ≤ ${fmt(fp.limit_ohm)} Ω (${fp.by === 'rcd' ? 'IEC 60364-4-41, 411.5.3' : 'max Zs for the required time'})`;
   const numbers = { ...reading, limit: round(bound) };
   if (r.value > bound || (r.kind === 'at-least' && r.value >= bound)) {
     return result(id, 'attention', `${measured} > ${tolerance}: more than the cable length explains (a poor joint or a longer route?); ${loop}`, numbers);

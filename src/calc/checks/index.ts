@@ -1,6 +1,8 @@
 // The registry of checks, in the order a pack lists them (CONTRACT.md check ids).
 import type { Check, CheckId } from '../types.js';
 import { adiabatic } from './adiabatic.js';
+import { additionalProtection } from './additional-protection.js';
+import { cpcSize } from './cpc-size.js';
 import { breakingCapacity } from './breaking-capacity.js';
 import { continuity } from './continuity.js';
 import { disconnection } from './disconnection.js';
@@ -20,6 +22,7 @@ export const CHECKS: readonly (readonly [CheckId, Check])[] = [
   ['zs-design', zsDesign],
   ['disconnection', disconnection],
   ['adiabatic', adiabatic],
+  ['cpc-size', cpcSize],
   ['breaking-capacity', breakingCapacity],
   ['continuity', continuity],
   ['ring', ring],
@@ -28,4 +31,5 @@ export const CHECKS: readonly (readonly [CheckId, Check])[] = [
   ['zs-measured', zsMeasured],
   ['rcd', rcd],
   ['rcd-tt', rcdTt],
+  ['additional-protection', additionalProtection],
 ];

@@ -1,4 +1,5 @@
-// Polarity: every single-pole device in the line conductor, as recorded by the tester.
+// Polarity: every single-pole device in the line conductor, as recorded by the tester
+// (IEC 60364-6, 6.4.3.6; BS 7671 643.6 — clause numbers from memory).
 import type { Check } from '../types.js';
 import { notVerified, result } from './result.js';
 
@@ -6,7 +7,7 @@ export const polarity: Check = ({ readings }) => {
   const m = readings.polarity;
   if (!m) return notVerified('polarity', 'no polarity result recorded in any test session');
   switch (m.value) {
-    case 'ok': return result('polarity', 'pass', `polarity confirmed correct on ${m.date}`, { date: m.date });
+    case 'ok': return result('polarity', 'pass', `polarity confirmed correct on ${m.date}: single-pole devices in the line conductor (IEC 60364-6, 6.4.3.6)`, { date: m.date });
     case 'fail': return result('polarity', 'fail', `polarity found incorrect on ${m.date}`, { date: m.date });
     case 'n/a':
       return readings.notes

@@ -23,6 +23,8 @@ export type DesignFault =
     timeBasis: string;
     /** energy let through, for the adiabatic check (null where it does not operate) */
     energy: { i2t_a2s: number; basis: string } | null;
+    /** the maker's Ia, where the device is known by it alone (device_ia_a) */
+    makerIa: number | null;
   };
 
 export interface FaultOptions {
@@ -30,6 +32,8 @@ export interface FaultOptions {
   cmin: number;
   /** the RCD that gives fault protection (TT supplies), if any */
   rcd: { ma: number; type: RcdType | undefined } | null;
+  /** the maker's Ia within the required time, for a device the library does not hold */
+  maker?: { ia_a: number; required_s: number; basis: string } | null;
 }
 
 export function designFault(design: Design, device: Device, o: FaultOptions): DesignFault {
@@ -45,14 +49,27 @@ export function designFault(design: Design, device: Device, o: FaultOptions): De
       time_s: t?.time_s ?? null,
       timeBasis: t ? t.basis : `below IΔn ${o.rcd.ma} mA the RCD need not break`,
       energy: t ? { i2t_a2s: current ** 2 * t.time_s, basis: `I²t = ${fmt(current)}² × ${t.time_s} s = ${fmt(current ** 2 * t.time_s)} A²s (${t.basis})` } : null,
+      makerIa: null,
     };
   }
   const opener = `${device.code} ${fmt(device.rating_a)} A`;
+  if (characteristic(device) === null && o.maker) {
+    const m = o.maker;
+    const operates = current >= m.ia_a;
+    return {
+      known: true, current_a: current, basis, opener, device_known: true,
+      time_s: operates ? m.required_s : null,
+      timeBasis: operates ? `${m.basis}; ${fmt(current)} A ≥ Ia` : `${m.basis}; ${fmt(current)} A < Ia`,
+      energy: operates ? { i2t_a2s: current ** 2 * m.required_s, basis: `I²t ≤ ${fmt(current)}² × ${fmt(m.required_s)} s (${m.basis})` } : null,
+      makerIa: m.ia_a,
+    };
+  }
   const device_known = characteristic(device) !== null;
   const time = device_known ? operatingTime(device, current).slowest_s : null;
   return {
     known: true, current_a: current, basis, opener, device_known, time_s: time,
     timeBasis: 'slowest edge of its characteristic',
     energy: time === null ? null : energyAt(device, current),
+    makerIa: null,
   };
 }

@@ -62,9 +62,14 @@ export function bs88Part2Characteristic(ratingA: number): Characteristic | null 
   return ggCharacteristic(ratingA, published, 'BS 88-2');
 }
 
+/**
+ * BS 88-3: only points with a documented published source (reference/fuses-bs88-3.ts); none held,
+ * the fuse has no characteristic (the IEC 60269-1 gates alone do not describe it).
+ */
 export function bs88Part3Characteristic(ratingA: number): Characteristic | null {
-  const published = (BS88_3_POINTS[ratingA] ?? []).map((p) => ({ ...p, source: 'BS 7671 Table 41.2 (REFERENCE.md)' }));
-  return ggCharacteristic(ratingA, published, 'BS 88-3');
+  const published = BS88_3_POINTS[ratingA] ?? [];
+  if (published.length === 0) return null;
+  return ggCharacteristic(ratingA, [...published], 'BS 88-3');
 }
 
 /**

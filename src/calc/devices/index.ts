@@ -18,7 +18,8 @@
 // - fastest: no trip within the conventional time at 1.13 In, within 1 s at 2.55 In, within 0.1 s
 //   at the lower multiple (B 3, C 5, D 10); above that the instantaneous release may trip at once.
 // Fuses:
-// - gG fuse-links (fuse:gG — BS 88-2 / IEC 60269-2; fuse:bs88-3 — BS 88-3 / IEC 60269-3, also gG):
+// - gG fuse-links (fuse:gG — BS 88-2 / IEC 60269-2; fuse:bs88-3 — BS 88-3 / IEC 60269-3, also gG,
+//   held only where a published BS 88-3 point is documented: none today, so a circuit gives device_ia_a):
 //   slowest through the conventional fusing current If within the conventional time
 //   (IEC 60269-1 Table 2), the BS 7671 Table 41.4 / 41.2 points at 5 s and 0.4 s where published,
 //   else the IEC 60269-1 gate Imax(5 s), and the gate Imax(0.1 s); fastest through the
@@ -37,6 +38,6 @@ export { characteristic, breakerType } from './lookup.js';
 export type { Characteristic } from './characteristic.js';
 export type { Edge, Point, Tail } from './curve.js';
 export { timeAt } from './curve.js';
-export { maxZs, operatingTime, currentForTime, energyAt, measuredFault, type MaxZs } from './queries.js';
+export { maxZs, makerIa, operatingTime, currentForTime, energyAt, measuredFault, type MaxZs } from './queries.js';
 export { deviceFamily, type DeviceFamily } from './family.js';
 export { ratingProblem } from '../../model/device-rating.js';

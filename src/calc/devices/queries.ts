@@ -73,3 +73,20 @@ export function measuredFault(
   const t = operatingTime(device, current).slowest_s;
   return { fault_current_a: significant(current), disconnect_s: t === null ? null : significant(t) };
 }
+
+/**
+ * The maker's Ia (device_ia_a) for a device whose characteristic the library does not hold: the
+ * current that operates it within the required time. A household fuse (BS 88-3) is never taken as
+ * faster than the BS 88-2 fuse of the same rating (published tables: it is the slower of the two),
+ * so its Ia is at least that fuse's. Null where the library holds the device or no figure is given.
+ */
+export function makerIa(device: Device, requiredS: number, givenA: number | undefined): { ia_a: number; basis: string } | null {
+  if (givenA === undefined || characteristic(device) !== null) return null;
+  if (device.code === 'fuse:bs88-3') {
+    const floor = currentForTime({ code: 'fuse:gG', rating_a: device.rating_a }, requiredS);
+    if (floor !== null && floor > givenA) {
+      return { ia_a: floor, basis: `Ia = ${show(floor)} A: the maker's ${fmt(givenA)} A would make the BS 88-3 fuse faster than the BS 88-2 fuse of the same rating, so that fuse's Ia within ${fmt(requiredS)} s is taken` };
+    }
+  }
+  return { ia_a: givenA, basis: `Ia = ${fmt(givenA)} A within ${fmt(requiredS)} s, the maker's (device_ia_a)` };
+}
