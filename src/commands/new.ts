@@ -22,16 +22,18 @@ const FILL = FILL_IN;
 const indent = (text: string, prefix: string): string =>
   text.trimEnd().split('\n').map((l) => `${prefix}${l}`).join('\n');
 
-/** The earlier job's project.yaml fields that carry over: its boards and spreadsheet mapping. */
-function earlier(from: string): { boards: unknown; circuits: unknown } | null {
+/** The earlier job's project.yaml fields that carry over: its boards, spreadsheet mapping and number of phases (its circuits need them). */
+interface Earlier { boards: unknown; circuits: unknown; phases: unknown }
+
+function earlier(from: string): Earlier | null {
   const path = join(from, 'project.yaml');
   if (!existsSync(path)) return null;
   const { doc } = readYaml('project.yaml', readFileSync(path, 'utf8'));
-  const data = (doc?.data ?? {}) as { boards?: unknown; circuits?: unknown };
-  return { boards: data.boards, circuits: data.circuits };
+  const data = (doc?.data ?? {}) as { boards?: unknown; circuits?: unknown; supply?: { phases?: unknown } };
+  return { boards: data.boards, circuits: data.circuits, phases: data.supply?.phases };
 }
 
-export function projectYaml(jobDir: string, from: { boards: unknown; circuits: unknown } | null): string {
+export function projectYaml(jobDir: string, from: Earlier | null): string {
   const firm = readFirm(jobDir);
   const firmData = (firm?.doc?.data ?? {}) as Record<string, unknown>;
   const schema = relative(resolve(jobDir), PROJECT_SCHEMA).split('\\').join('/');
@@ -65,7 +67,7 @@ export function projectYaml(jobDir: string, from: { boards: unknown; circuits: u
     'supply:',
     `  earthing: TN-C-S     # ${FILL}: the earthing system (${EARTHING.filter((e) => e !== 'IT').join(', ')}; IT is not assessed), then delete this comment`,
     '  u0_v: 230            # nominal voltage to earth, V',
-    '  phases: 1            # 1 or 3',
+    `  phases: ${from?.phases === 3 || from?.phases === '3' ? 3 : 1}            # 1 or 3`,
     '  frequency_hz: 50',
     '  # ze_ohm: 0.28       # external earth fault loop impedance, measured (without it the design Zs is not verified)',
     '  # pfc_ka: 2.1        # prospective fault current at the origin, measured',
