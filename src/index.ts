@@ -1,5 +1,6 @@
 // packsmith's public API; the command line is one caller of it.
 export { readJob } from './load/job.js';
+export { findFirmFile, readFirm, type Firm } from './load/firm.js';
 export { validate, type Project } from './model/validate.js';
 export { assess } from './calc/assess.js';
 export { loadJob, type LoadedJob } from './job.js';

@@ -3,6 +3,7 @@
 import { parseArgs } from 'node:util';
 import { relative } from 'node:path';
 import { issueRevision } from '../issue.js';
+import { missingFolder } from './folders.js';
 
 import { today } from './today.js';
 
@@ -24,6 +25,11 @@ export async function issueCommand(args: string[]): Promise<0 | 1 | 2> {
   });
   if (positionals.length !== 1 || values.by === undefined) {
     process.stderr.write(`packsmith issue needs one job folder and --by NAME\nusage: ${ISSUE_USAGE}\n`);
+    return 2;
+  }
+  const missing = missingFolder(positionals[0]!, 'job folder');
+  if (missing) {
+    process.stderr.write(`${missing}\n`);
     return 2;
   }
   const r = await issueRevision({

@@ -8,6 +8,7 @@ import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
 import { confinedFolder, isInside, readConfined, realFolder } from './confine.js';
 import { decodeText } from './text.js';
+import { readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
 /** A readings file's name: its test date and an optional label. */
@@ -49,7 +50,7 @@ export function readJob(dir: string): RawJob {
   const root = resolve(dir);
   const errors: LocatedError[] = [];
   const files = new Map<string, Buffer>();
-  const job: RawJob = { name: basename(root), dir: root, project: null, circuits: null, sessions: [], notes: null, files, errors };
+  const job: RawJob = { name: basename(root), dir: root, project: null, firm: null, circuits: null, sessions: [], notes: null, files, errors };
 
   if (!existsSync(root) || !statSync(root).isDirectory()) {
     errors.push({ file: dir, row: 1, column: 1, message: 'no job folder here; expected a folder holding project.yaml and circuits.csv' });
@@ -75,17 +76,26 @@ export function readJob(dir: string): RawJob {
   if (projectText === null) {
     errors.push({ file: 'project.yaml', row: 1, column: 1, message: 'file missing; every job needs a project.yaml (title, client, site, supply, boards)' });
   } else if (projectText !== undefined) {
-    const { doc, errors: e } = readYaml('project.yaml', projectText);
-    job.project = doc;
+    const { doc: own, errors: e } = readYaml('project.yaml', projectText);
     for (const x of e) errors.push(x);
+    // the firm's settings beneath the job's own; the firm file is an input like the job's files
+    const firmFile = readFirm(root);
+    job.firm = firmFile;
+    if (firmFile) {
+      files.set(firmFile.file, firmFile.bytes);
+      for (const x of firmFile.errors) errors.push(x);
+    }
+    const doc = own && firmFile?.doc ? withFirm(own, firmFile, root) : own;
+    job.project = doc;
     const theme = (doc?.data as { theme?: unknown } | null)?.theme;
     if (doc && typeof theme === 'string' && theme.trim() !== '') {
       const path = resolve(root, theme.trim());
       const firm = firmFolder(root);
+      const at = doc.positionOf(['theme']);
       if (!isDirectory(path)) {
-        errors.push({ ...doc.positionOf(['theme']), message: `theme: no folder "${theme}" (looked in ${path}); expected a theme folder, relative to the job folder` });
+        errors.push({ ...at, message: `theme: no folder "${theme}" (looked in ${path}); expected a theme folder, relative to ${at.file === 'project.yaml' ? 'the job folder' : 'the folder of the firm file'}` });
       } else if (!isInside(realFolder(firm), realFolder(path))) {
-        errors.push({ ...doc.positionOf(['theme']), message: `theme: "${theme}" is outside ${firm}, the firm's folder that holds the jobs; a job names a theme inside it (a theme elsewhere is given on the command line: --theme DIR)` });
+        errors.push({ ...at, message: `theme: "${theme}" is outside ${firm}, the firm's folder that holds the jobs; a job names a theme inside it (a theme elsewhere is given on the command line: --theme DIR)` });
       }
     }
   }

@@ -17,6 +17,12 @@ export function readYaml(file: string, text: string): { doc: RawYaml | null; err
     const p = lineCounter.linePos(offset);
     return { file, row: p.line, column: p.col };
   };
+  const tabs = tabIndented(text);
+  if (doc.errors.length > 0 && tabs.length > 0) {
+    // one cause, one message: the YAML parser would report every tab-indented line and what follows
+    const lines = tabs.length > 5 ? `${tabs.slice(0, 5).join(', ')} and ${tabs.length - 5} more` : tabs.join(', ');
+    return { doc: null, errors: [{ file, row: tabs[0]!, column: 1, message: `indented with a tab (line${tabs.length > 1 ? 's' : ''} ${lines}); YAML is indented with spaces: replace each tab with two spaces, or set your editor to insert spaces` }] };
+  }
   const errors: LocatedError[] = doc.errors.map((e) => ({ ...at(e.pos[0]), message: `cannot read this YAML: ${e.message.split('\n')[0]}` }));
   if (errors.length > 0) return { doc: null, errors };
 
@@ -74,4 +80,9 @@ export function readYaml(file: string, text: string): { doc: RawYaml | null; err
     return at(found?.range?.[0] ?? 0);
   };
   return { doc: { file, data: data ?? {}, positionOf }, errors };
+}
+
+/** Lines (1-based) whose indentation holds a tab. */
+function tabIndented(text: string): number[] {
+  return text.split(/\r?\n/).flatMap((line, i) => (/^[ ]*\t/.test(line) ? [i + 1] : []));
 }

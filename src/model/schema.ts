@@ -166,6 +166,8 @@ export const ProjectFileSchema = z.strictObject({
       });
     }),
   readings: ReadingsSettingsSchema.default({ columns: {} }),
+  /** how a spreadsheet's own column headers map onto circuits.csv's columns, or "ignore" */
+  circuits: z.lazy(() => CircuitsSettingsSchema).default({ columns: {} }),
   /** a firm's theme folder, relative to the job folder (templates, partials, stylesheet, logo) */
   theme: word('a theme folder, e.g. ../../themes/my-firm').optional(),
   paper: choice(PAPER, 'the paper size').optional(),
@@ -226,3 +228,10 @@ export type Circuit = z.output<typeof CircuitSchema>;
 export const CIRCUIT_REQUIRED = ['board', 'ref', 'description', 'kind', 'ib_a', 'device', 'rating_a',
   'live_mm2', 'cpc_mm2', 'length_m', 'method'] as const;
 export const CIRCUIT_COLUMNS = Object.keys(CircuitSchema.shape);
+
+/** circuits: in project.yaml — a spreadsheet's column headers → circuits.csv columns, or "ignore". */
+export const CircuitsSettingsSchema = z.strictObject({
+  columns: z.record(z.string(), choice([IGNORE_COLUMN, ...(CIRCUIT_COLUMNS as [string, ...string[]])], 'a circuits.csv column or "ignore"'))
+    .default({}),
+});
+export type CircuitsSettings = z.output<typeof CircuitsSettingsSchema>;

@@ -52,6 +52,6 @@ describe('packsmith build with themes', () => {
     writeFileSync(join(job, 'circuits.csv'), readFileSync('projects/marsh-street-surgery/circuits.csv', 'utf8'));
     const r = packsmith(['check', job]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/^project\.yaml:28:8: theme: no folder "\.\.\/fenwick-typo"/m);
+    expect(r.stderr).toMatch(/^project\.yaml:29:8: theme: no folder "\.\.\/fenwick-typo"/m);
   });
 });
