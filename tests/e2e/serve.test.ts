@@ -40,8 +40,7 @@ describe('packsmith serve in Chromium', () => {
   const profile = mkdtempSync(join(tmpdir(), 'packsmith-serve-chromium-'));
 
   beforeAll(async () => {
-    mkdirSync(projects);
-    job = jobWithRing(projects);
+    job = jobWithRing(root); // copyFixture puts it in root/projects/
     server = startPacksmith(['serve', projects, '--port', '0', '--out', join(root, 'out')]);
     base = await new Promise<string>((resolve, reject) => {
       let text = '';

@@ -29,8 +29,7 @@ describe('packsmith serve over HTTP', () => {
   let job: string;
 
   beforeAll(async () => {
-    mkdirSync(projects);
-    job = copyFixture('pack-job', projects);
+    job = copyFixture('pack-job', root); // into root/projects/
     mkdirSync(join(out, 'pack-job'), { recursive: true });
     writeFileSync(join(out, 'index.html'), '<!doctype html><style>p{}</style><p>site</p>');
     writeFileSync(join(root, 'secret.txt'), 'outside');
@@ -105,8 +104,7 @@ describe('packsmith serve over HTTP', () => {
 
 describe('packsmith serve beyond loopback', () => {
   it('asks for the token it makes', async () => {
-    const projects = scratch('serve-token');
-    copyFixture('pack-job', projects);
+    const projects = join(copyFixture('pack-job', scratch('serve-token')), '..');
     const s = await serve({ folder: projects, out: join(projects, 'out'), host: '0.0.0.0', port: 0, log: () => {} });
     try {
       expect(s.token).toMatch(/^[A-Za-z0-9_-]{32}$/);
