@@ -79,7 +79,7 @@ describe('the printed pack', () => {
 
   it('splits a long schedule across pages with its header repeated and no row cut in half', async () => {
     const { text } = await pdfText(pdf(out, 'long-board'));
-    const header = 'Ref Circuit Device In A Ib A Iz A Cable Method Length m Max Zs Ω Design Zs Ω Disconn. s Required s VD % Min cpc mm² Design';
+    const header = 'Ref Circuit Device In A Ib A Iz A Cable Method Length m Max Zs Ω Design Zs Ω Disconn. s Required s VD % Min cpc mm² VD from origin % Longest run m Design';
     const walls = ['north wall by the racking', 'south wall under the mezzanine', 'east dock doors and ramp', 'west aisle end and charging point'];
     const schedulePages = text.map((t, i) => ({ t, i })).filter(({ t }) => /S\d+ Sockets bay \d+ [a-z ]+ mcb:B 20/.test(t));
     expect(schedulePages.length).toBeGreaterThanOrEqual(2);
