@@ -190,7 +190,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const html = pack.html;
       step('rendered');
 
-      const staging = openStaging(outDir(out, project.name));
+      const staging = openStaging(jobOut);
       let committed = false;
       try {
         step('staging');

@@ -97,8 +97,8 @@ describe('the archive site', () => {
       }
     }
     // the revisions stay in the archive beside projects/; the site in out/ links them there
-    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/../../archive/archive-job/rev-1/pack.html', 'archive-job/../../archive/archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
-    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', '../../archive/archive-job/rev-1/pack.html', '../../archive/archive-job/rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
+    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['./archive-job/../../archive/archive-job/rev-1/pack.html', './archive-job/../../archive/archive-job/rev-1/pack.pdf', './failing-job/draft/pack.pdf']));
+    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', './../../archive/archive-job/rev-1/pack.html', './../../archive/archive-job/rev-1/pack.pdf', './draft/pack.html', './draft/pack.pdf']);
     expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false);
   });
 });
