@@ -12,17 +12,26 @@ import { progressLine, type ProgressStream } from './print/progress.js';
 import type { Paper } from './model/schema.js';
 import { packData, dataBytes } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
-import { inspectJob } from './archive/verify.js';
+import { inspectJob, type IssuedRevision } from './archive/verify.js';
 import { changesSince } from './archive/previous.js';
 import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
-import { writeSite } from './archive/site.js';
-import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
+import { writeSite, type SiteSource } from './archive/site.js';
+import { jobArchiveSettings } from './archive/location.js';
+import { jobFolders } from './load/jobs.js';
+import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf, type PackStyle } from './produce.js';
+import type { Project } from './model/validate.js';
+import type { Assessment } from './calc/types.js';
+import { claimOut, outDir } from './archive/out.js';
 import { VERSION } from './version.js';
 
 export interface BuildOptions {
   jobs: string[];
   out: string;
+  /** `--archive DIR`: where issued revisions live (else the firm file's `archive`, else archive/ beside the job folders' folder) */
+  archive?: string | null;
+  /** today's date (read by the command line): a test session dated later is an input error */
+  today?: string;
   /** rebuild every job, changed or not */
   force?: boolean;
   /** where messages go (stderr by default) */
@@ -48,13 +57,7 @@ export interface BuildResult {
 }
 
 /** Every folder under projects/ that holds a project.yaml. */
-export function defaultJobs(root = 'projects'): string[] {
-  if (!existsSync(root)) return [];
-  return readdirSync(root)
-    .map((n) => join(root, n))
-    .filter((p) => statSync(p).isDirectory() && existsSync(join(p, 'project.yaml')))
-    .sort();
-}
+export const defaultJobs = (root = 'projects'): string[] => jobFolders(root);
 
 /** The last test date, for a draft's cover (no wall-clock time in outputs). */
 function lastTestDate(sessions: { date: string }[], fallback: string | undefined): string {
@@ -62,11 +65,21 @@ function lastTestDate(sessions: { date: string }[], fallback: string | undefined
 }
 
 /** The PDF's dates: the draft's date, or a fixed one when the job has no date at all (never the clock). */
-const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '1970-01-01');
+export const pdfDate = (d: string): string => (/^\d{4}-\d{2}-\d{2}$/.test(d) ? d : '1970-01-01');
+
+/** A job's draft: labelled with its last test date, with the changes since its latest revision (`latest`). */
+export function draftPack(project: Project, assessment: Assessment, latest: IssuedRevision | null, style: PackStyle, log: (line: string) => void) {
+  const date = lastTestDate(project.sessions, project.file.dates.completed);
+  const label = { label: 'DRAFT', draft: true, date };
+  const data = dataBytes(packData(project, assessment, VERSION, null));
+  const since = changesSince(latest, JSON.parse(data), null);
+  if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
+  return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
+}
 
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
-  const out = resolve(opts.out);
+  const out = claimOut(opts.out);
   const engineFor = engineCache();
   const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
@@ -75,9 +88,10 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
   const names = new Map<string, string>();
+  const sources: SiteSource[] = [];
   try {
     for (const dir of opts.jobs) {
-      const job = loadJob(dir);
+      const job = loadJob(dir, opts.today ? { today: opts.today } : {});
       const twin = names.get(job.raw.name);
       if (twin !== undefined) {
         const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${job.raw.name}/` };
@@ -86,15 +100,18 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         continue;
       }
       names.set(job.raw.name, dir);
-      if (!job.ok) {
-        result.invalid.push({ job: job.raw.name, errors: job.errors });
-        for (const e of job.errors) log(`${job.raw.name}/${formatError(e)}`);
+      const where = jobArchiveSettings(dir, opts.archive ?? null);
+      if (!job.ok || where.errors.length > 0) {
+        const errors = [...where.errors, ...(job.ok ? [] : job.errors)];
+        result.invalid.push({ job: job.raw.name, errors });
+        for (const e of errors) log(`${job.raw.name}/${formatError(e)}`);
         progress.tick(job.raw.name);
         continue;
       }
       const { project, assessment } = job;
       const target = join(out, project.name, 'draft');
-      const latest = inspectJob(out, project.name).revisions.at(-1) ?? null;
+      sources.push({ job: project.name, archive: where.archive });
+      const latest = inspectJob(where.archive, project.name).revisions.at(-1) ?? null;
       const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
       const fingerprint: Fingerprint = {
         packsmith: VERSION,
@@ -108,21 +125,16 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         progress.tick(project.name);
         continue;
       }
-      const date = lastTestDate(project.sessions, project.file.dates.completed);
-      const label = { label: 'DRAFT', draft: true, date };
-      const data = dataBytes(packData(project, assessment, VERSION, null));
-      const since = changesSince(latest, JSON.parse(data), null);
-      if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
-      const pack = packFiles(project, assessment, label, since.ok ? since.changes : null, style);
+      const { date, label, data, pack } = draftPack(project, assessment, latest, style, log);
 
-      mkdirSync(target, { recursive: true });
+      outDir(out, project.name, 'draft');
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
       result.built.push(built);
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, title: project.file.title, date, summary: assessment.summary, outputs }));
+      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address, date, summary: assessment.summary, outputs }));
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
@@ -148,6 +160,6 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     await Promise.allSettled(printing);
     await printer?.close();
   }
-  writeSite(out);
+  writeSite(out, sources);
   return result;
 }

@@ -8,7 +8,7 @@ import type { Assessment } from './calc/types.js';
 import type { Changes } from './render/view.js';
 import { BUILTIN_TEMPLATES, type Engine } from './render/engine.js';
 import { renderPackFiles, type RenderedPack } from './render/pack.js';
-import { launchBrowser, type PrintBrowser } from './print/browser.js';
+import { clearStaleProfiles, launchBrowser, type PrintBrowser } from './print/browser.js';
 import { createPrintPool, type PrintPool } from './print/pool.js';
 import { setPdfMetadata } from './print/metadata.js';
 import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
@@ -21,6 +21,8 @@ export interface PackLabel {
   date: string;
   /** issued although checks failed or are not verified (--accept-open-items) */
   acceptedOpenItems?: boolean;
+  /** fingerprint of the firm key that signs the revision (printed on the sign-off page) */
+  keyFingerprint?: string | null;
 }
 
 /** How a job's packs look: its theme's engine, its paper, and a hash of every template used. */
@@ -56,7 +58,7 @@ export function cachedTreeHash(): (dir: string) => string {
 }
 
 export function packFiles(project: Project, assessment: Assessment, label: PackLabel, changes: Changes | null, style: PackStyle): RenderedPack {
-  return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes, acceptedOpenItems: label.acceptedOpenItems ?? false }, style.engine);
+  return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes, acceptedOpenItems: label.acceptedOpenItems ?? false, keyFingerprint: label.keyFingerprint ?? null }, style.engine);
 }
 
 export async function packPdf(
@@ -84,6 +86,7 @@ export interface Printer {
 }
 
 export function lazyPrinter(chromium: string, poolSize?: number): Printer {
+  clearStaleProfiles(); // what runs killed outright left, printing or not this time
   let started: Promise<{ browser: PrintBrowser; pool: PrintPool }> | null = null;
   const start = () => (started ??= launchBrowser(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize) })));
   return {

@@ -1,7 +1,7 @@
 // Changes between two revisions' data.json: circuits added or removed, design data changed,
 // readings changed (old → new, with their test dates), verdicts changed, job details changed.
 import type { Changes } from '../render/view.js';
-import { showReading } from '../render/view.js';
+import { showReading } from '../render/values.js';
 import { MEASURED, type MeasuredField } from '../model/schema.js';
 import { circuitKey, type CircuitReadings } from '../model/readings.js';
 import type { Reading } from '../model/units.js';
@@ -36,8 +36,12 @@ export function diffData(prev: PackData & { revision: RevisionInfo }, next: Pack
   const changes: Changes = {
     since: { revision: prev.revision.number, date: prev.revision.date },
     issued,
-    circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [],
+    circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [], lateSessions: [],
   };
+  const earlier = new Set(prev.sessions.map((s) => s.file));
+  for (const s of next.sessions) {
+    if (!earlier.has(s.file) && s.date <= prev.revision.date) changes.lateSessions.push({ file: s.file, date: s.date });
+  }
   const before = new Map(prev.circuits.map((c) => [circuitKey(c.board, c.ref), c]));
   const after = new Set(next.circuits.map((c) => circuitKey(c.board, c.ref)));
   for (const c of prev.circuits) {
@@ -90,5 +94,5 @@ export function diffData(prev: PackData & { revision: RevisionInfo }, next: Pack
 
 /** The section of revision 1, which has nothing before it. */
 export const firstIssue = (issued: Changes['issued']): Changes => ({
-  since: null, issued, circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [],
+  since: null, issued, circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [], lateSessions: [],
 });

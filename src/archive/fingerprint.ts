@@ -24,7 +24,12 @@ export type Fingerprint = z.output<typeof FingerprintSchema>;
 const StampSchema = z.object({
   format: z.literal('packsmith-build/1'),
   fingerprint: FingerprintSchema,
+  /** the job's archive folder (absolute), so the site can link its revisions */
+  archive: z.string().optional(),
   title: z.string(),
+  /** the client and site address, for the archive site (absent in stamps of older builds) */
+  client: z.string().optional(),
+  site: z.string().optional(),
   date: z.string(),
   summary: SummarySchema,
   outputs: z.record(z.string(), z.string()),

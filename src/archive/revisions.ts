@@ -32,11 +32,13 @@ const EntrySchema = z.object({
   input_hash: z.string(),
   packsmith: z.string(),
   accepted_open_items: z.boolean().default(false),
+  /** SHA-256 of the revision's manifest.json as issued (null in a record written before it was kept) */
+  manifest_sha256: z.string().nullable().default(null),
 });
 export type RecordEntry = z.output<typeof EntrySchema>;
 const RecordSchema = z.object({ revisions: z.array(EntrySchema) });
 
-export function recordEntry(m: Manifest): RecordEntry {
+export function recordEntry(m: Manifest, manifestSha: string): RecordEntry {
   return {
     revision: m.revision.number,
     date: m.revision.date,
@@ -45,6 +47,7 @@ export function recordEntry(m: Manifest): RecordEntry {
     input_hash: m.input_hash,
     packsmith: m.packsmith,
     accepted_open_items: m.revision.accepted_open_items,
+    manifest_sha256: manifestSha,
   };
 }
 

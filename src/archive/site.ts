@@ -1,15 +1,20 @@
 // The archive site: DIR/index.html lists every job with its latest revision, its status, its
 // issue dates and links to every revision's HTML and PDF; DIR/<job>/index.html lists one job.
 // Plain static pages with relative links: they work from file:// and any web server, no script.
-import { existsSync, mkdirSync } from 'node:fs';
-import { join } from 'node:path';
+// The revisions stay in the archive folder (kept with the jobs); the site, in out/, links them.
+import { createHash } from 'node:crypto';
+import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { outDir } from './out.js';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
-import { overallStatus, STATUS_LOOK } from '../render/view.js';
+import { overallStatus, STATUS_LOOK } from '../render/status.js';
 import { archiveJobs, inspectJob } from './verify.js';
 import { readStamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
+import { parseJson } from './json.js';
+import { withCsp } from '../render/csp.js';
 
 export interface SitePack {
   name: string;
@@ -23,6 +28,8 @@ export interface SitePack {
 export interface SiteJob {
   job: string;
   title: string;
+  client: string | null;
+  site: string | null;
   revisions: (SitePack & { by: string; reason: string | null })[];
   latest: SitePack | null;
   draft: SitePack | null;
@@ -40,10 +47,33 @@ export function countsText(summary: Summary): string {
   return parts.join(', ');
 }
 
-/** What the archive folder holds for one job, read from its manifests and its draft's build.json. */
-export function siteJob(out: string, job: string): SiteJob | null {
-  const archive = inspectJob(out, job);
+/** The client and site of an issued revision, from its data.json (null where it cannot be read). */
+function partiesOf(revisionDir: string): { client: string | null; site: string | null } {
+  try {
+    const parsed = parseJson(readFileSync(join(revisionDir, 'data.json'), 'utf8'));
+    const project = parsed.ok ? (parsed.value as { project?: { client?: { name?: unknown }; site?: { address?: unknown } } }).project : undefined;
+    const text = (v: unknown) => (typeof v === 'string' ? v : null);
+    return { client: text(project?.client?.name), site: text(project?.site?.address) };
+  } catch {
+    return { client: null, site: null };
+  }
+}
+
+/** A job and the archive folder that holds its revisions. */
+export interface SiteSource {
+  job: string;
+  archive: string;
+}
+
+/** Links from out/<job>/ to a file of the job's archive (relative, so the site works from disk). */
+const linkTo = (out: string, job: string, archive: string, file: string): string =>
+  relative(join(out, job), join(archive, job, file)).split('\\').join('/');
+
+/** What the archive holds for one job (its manifests) and its draft in `out` (its build.json). Links are relative to out/<job>/. */
+export function siteJob(out: string, job: string, archiveDir: string | null = null): SiteJob | null {
   const stamp = readStamp(join(out, job, 'draft'));
+  const where = archiveDir ?? stamp?.archive ?? null;
+  const archive = where ? inspectJob(where, job) : { revisions: [], findings: [] };
   if (archive.revisions.length === 0 && !stamp) return null;
   const revisions = archive.revisions.map((r) => ({
     name: `Revision ${r.number}`,
@@ -52,8 +82,8 @@ export function siteJob(out: string, job: string): SiteJob | null {
     reason: r.manifest.revision.reason,
     status: statusWord(r.manifest.summary),
     counts: countsText(r.manifest.summary),
-    html: `${revisionDirName(r.number)}/pack.html`,
-    pdf: `${revisionDirName(r.number)}/pack.pdf`,
+    html: linkTo(out, job, where!, `${revisionDirName(r.number)}/pack.html`),
+    pdf: linkTo(out, job, where!, `${revisionDirName(r.number)}/pack.pdf`),
   }));
   const draft = stamp && {
     name: 'Draft',
@@ -64,9 +94,11 @@ export function siteJob(out: string, job: string): SiteJob | null {
     pdf: 'pack.pdf' in stamp.outputs ? 'draft/pack.pdf' : null,
   };
   const last = archive.revisions[archive.revisions.length - 1];
+  const parties = stamp?.client !== undefined ? { client: stamp.client, site: stamp.site ?? null } : last ? partiesOf(last.dir) : { client: null, site: null };
   return {
     job,
     title: last?.manifest.title ?? stamp?.title ?? job,
+    ...parties,
     revisions,
     latest: revisions[revisions.length - 1] ?? null,
     draft,
@@ -74,12 +106,48 @@ export function siteJob(out: string, job: string): SiteJob | null {
   };
 }
 
-const STYLE = `<style>body{font-family:"DejaVu Sans",sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1d2329}
+const STYLE = `<style>body{font-family:"DejaVu Sans",sans-serif;max-width:72rem;margin:2rem auto;padding:0 1rem;color:#1d2329}
 table{border-collapse:collapse;width:100%}td,th{border:1px solid #c9d0d6;padding:.3em .5em;text-align:left;vertical-align:top}
-thead th{background:#f1f4f6}.muted{color:#5b6670}.warn{color:#a3231f;font-weight:600}</style>`;
+thead th{background:#f1f4f6}.muted{color:#5b6670}.warn{color:#a3231f;font-weight:600}.date{white-space:nowrap}
+.scroll{overflow-x:auto}.tools{display:flex;flex-wrap:wrap;gap:.5em 1em;align-items:center}.tools input{font:inherit;padding:.25em .4em;min-width:16em}
+.tools button{font:inherit;padding:.25em .6em}@media (max-width:40rem){body{margin:1rem auto}}</style>`;
+
+/** The index's script: filter the rows as you type (every word must match), sort them by date. */
+export const SITE_SCRIPT = `(function () {
+  var find = document.getElementById('find'), sort = document.getElementById('sort'), body = document.getElementById('jobs-body'), none = document.getElementById('none');
+  if (!find || !sort || !body) return;
+  var rows = Array.prototype.slice.call(body.rows), newest = false;
+  function filter() {
+    var words = find.value.toLowerCase().split(/\\s+/).filter(Boolean), shown = 0;
+    rows.forEach(function (r) {
+      var text = r.getAttribute('data-text');
+      var hit = words.every(function (w) { return text.indexOf(w) >= 0; });
+      r.hidden = !hit;
+      if (hit) shown++;
+    });
+    if (none) none.hidden = shown > 0;
+  }
+  find.addEventListener('input', filter);
+  sort.addEventListener('click', function () {
+    newest = !newest;
+    rows.sort(function (a, b) {
+      var x = a.getAttribute('data-date'), y = b.getAttribute('data-date');
+      return newest ? y.localeCompare(x) : x.localeCompare(y);
+    });
+    rows.forEach(function (r) { body.appendChild(r); });
+    sort.textContent = newest ? 'Sort by date, oldest first' : 'Sort by date, newest first';
+  });
+  filter();
+})();`;
+
+/** The script's hash, for a Content-Security-Policy that allows exactly this inline script. */
+export const SITE_SCRIPT_SHA256 = `sha256-${createHash('sha256').update(SITE_SCRIPT).digest('base64')}`;
 
 const hb = Handlebars.create();
-hb.registerPartial('links', `<a href="{{prefix}}{{html}}">HTML</a>{{#if pdf}} · <a href="{{prefix}}{{pdf}}">PDF</a>{{/if}}`);
+hb.registerPartial('links', `<a href="{{href prefix html}}">HTML</a>{{#if pdf}} · <a href="{{href prefix pdf}}">PDF</a>{{/if}}`);
+// A link is always relative ("./"), each folder name percent-encoded: a job folder named
+// "javascript:alert(1)" is a folder, never a scheme.
+hb.registerHelper('href', (...args: unknown[]) => `./${args.slice(0, -1).flatMap((a) => String(a).split('/')).filter((p) => p !== '').map(encodeURIComponent).join('/')}`);
 
 const indexPage = hb.compile(
   `<!doctype html>
@@ -87,13 +155,17 @@ const indexPage = hb.compile(
 ${STYLE}</head>
 <body><h1>Completion packs</h1>
 {{#if jobs.length}}
-<table><thead><tr><th>Job</th><th>Latest revision</th><th>Status</th><th>Issued</th><th>Packs</th></tr></thead><tbody>
-{{#each jobs}}<tr><td><a href="{{job}}/index.html">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
-<td>{{#if latest}}{{latest.name}}, {{latest.date}}{{else}}none issued{{/if}}</td>
+<p class="tools"><label for="find">Find a job</label> <input type="search" id="find" placeholder="client, site, title or job" autocomplete="off"> <button type="button" id="sort">Sort by date, newest first</button></p>
+<div class="scroll"><table id="jobs"><thead><tr><th>Job</th><th>Client</th><th>Site</th><th>Latest</th><th>Date</th><th>Status</th><th>Packs</th></tr></thead><tbody id="jobs-body">
+{{#each jobs}}<tr data-date="{{sortDate}}" data-text="{{searchText}}"><td><a href="{{href job "index.html"}}">{{title}}</a><br><span class="muted">{{job}}</span>{{#if findings}}<br><span class="warn">{{findings}} archive finding(s): run packsmith verify</span>{{/if}}</td>
+<td>{{#if client}}{{client}}{{/if}}</td><td>{{#if site}}{{site}}{{/if}}</td>
+<td>{{#if latest}}{{latest.name}}{{else}}{{#if draft}}Draft only{{else}}none issued{{/if}}{{/if}}</td>
+<td class="date">{{#if latest}}{{latest.date}}{{else}}{{#if draft}}{{draft.date}}{{/if}}{{/if}}</td>
 <td>{{#if latest}}{{latest.status}}<br><span class="muted">{{latest.counts}}</span>{{else}}{{#if draft}}{{draft.status}} (draft)<br><span class="muted">{{draft.counts}}</span>{{/if}}{{/if}}</td>
-<td>{{#each revisions}}{{name}}: {{date}}<br>{{/each}}</td>
-<td>{{#each revisions}}{{name}}: {{> links prefix=(concat ../job "/")}}<br>{{/each}}{{#if draft}}Draft: {{> links draft prefix=(concat job "/")}}{{/if}}</td></tr>
-{{/each}}</tbody></table>
+<td>{{#each revisions}}<span class="date">{{name}}: {{> links prefix=../job}}</span><br>{{/each}}{{#if draft}}<span class="date">Draft: {{> links draft prefix=job}}</span>{{/if}}</td></tr>
+{{/each}}</tbody></table></div>
+<p id="none" class="muted" hidden>No job matches.</p>
+<script>${SITE_SCRIPT}</script>
 {{else}}<p>Nothing built or issued yet.</p>{{/if}}
 </body></html>
 `,
@@ -106,34 +178,49 @@ const jobPage = hb.compile(
 ${STYLE}</head>
 <body><p><a href="../index.html">All jobs</a></p>
 <h1>{{title}}</h1>
-<p class="muted">Job {{job}}</p>
+<p class="muted">Job {{job}}{{#if client}} · {{client}}{{/if}}{{#if site}} · {{site}}{{/if}}</p>
 {{#if findings}}<p class="warn">The archive of this job has {{findings}} finding(s): run packsmith verify.</p>{{/if}}
 <h2>Issued revisions</h2>
 {{#if revisions.length}}
-<table><thead><tr><th>Revision</th><th>Issued</th><th>By</th><th>Reason</th><th>Status</th><th>Pack</th></tr></thead><tbody>
-{{#each revisions}}<tr><td>{{name}}</td><td>{{date}}</td><td>{{by}}</td><td>{{#if reason}}{{reason}}{{/if}}</td><td>{{status}}<br><span class="muted">{{counts}}</span></td><td>{{> links prefix=""}}</td></tr>
-{{/each}}</tbody></table>
+<div class="scroll"><table><thead><tr><th>Revision</th><th>Issued</th><th>By</th><th>Reason</th><th>Status</th><th>Pack</th></tr></thead><tbody>
+{{#each revisions}}<tr><td>{{name}}</td><td class="date">{{date}}</td><td>{{by}}</td><td>{{#if reason}}{{reason}}{{/if}}</td><td>{{status}}<br><span class="muted">{{counts}}</span></td><td>{{> links prefix=""}}</td></tr>
+{{/each}}</tbody></table></div>
 {{else}}<p>No revision issued yet.</p>{{/if}}
 {{#if draft}}<h2>Draft</h2>
-<p>Last test {{draft.date}} · {{draft.status}} <span class="muted">({{draft.counts}})</span> · {{> links draft prefix=""}}</p>{{/if}}
+<p>Last test <span class="date">{{draft.date}}</span> · {{draft.status}} <span class="muted">({{draft.counts}})</span> · {{> links draft prefix=""}}</p>{{/if}}
 </body></html>
 `,
   { strict: true },
 );
 
-hb.registerHelper('concat', (...args: unknown[]) => args.slice(0, -1).join(''));
 
 export function renderIndex(jobs: SiteJob[]): string {
-  return indexPage({ jobs: [...jobs].sort((a, b) => a.job.localeCompare(b.job)) });
+  const rows = [...jobs].sort((a, b) => a.job.localeCompare(b.job)).map((j) => ({
+    ...j,
+    sortDate: j.latest?.date ?? j.draft?.date ?? '',
+    searchText: [j.job, j.title, j.client, j.site].filter(Boolean).join(' ').toLowerCase(),
+  }));
+  return withCsp(indexPage({ jobs: rows }), [SITE_SCRIPT_SHA256]);
 }
 
-export const renderJobPage = (job: SiteJob): string => jobPage(job);
+export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
 
-/** Write the site of the archive folder `out` from what it holds. */
-export function writeSite(out: string): SiteJob[] {
-  mkdirSync(out, { recursive: true });
-  const jobs = archiveJobs(out).map((j) => siteJob(out, j)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) if (existsSync(join(out, j.job))) writeReplacing(join(out, j.job, 'index.html'), renderJobPage(j));
+/**
+ * Write the site in `out`: every job with a draft there (its build.json names its archive), every
+ * job of `sources`, and every other job of their archive folders.
+ */
+export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
+  outDir(out);
+  const where = new Map<string, string | null>();
+  for (const name of readdirSync(out, { withFileTypes: true })) {
+    if (name.isDirectory() && !name.name.startsWith('.')) where.set(name.name, null);
+  }
+  for (const a of new Set(sources.map((s) => s.archive))) for (const j of archiveJobs(a)) where.set(j, a);
+  for (const s of sources) where.set(s.job, s.archive);
+  const jobs = [...where].map(([j, a]) => siteJob(out, j, a)).filter((j): j is SiteJob => j !== null);
+  for (const j of jobs) {
+    writeReplacing(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
+  }
   writeReplacing(join(out, 'index.html'), renderIndex(jobs));
   return jobs;
 }

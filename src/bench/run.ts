@@ -19,6 +19,7 @@ import { pdfOptions, type PdfOptions } from '../print/pdf.js';
 import { createPrintPool, defaultPoolSize } from '../print/pool.js';
 import { generateArchive } from './generate.js';
 import { sampleTree } from './memory.js';
+import { describeTimes, previewRefresh } from './serve.js';
 
 const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' } } });
 const count = Number(values.jobs);
@@ -109,6 +110,9 @@ async function main() {
   const again = await build({ jobs: archive.jobs, out, progress: quiet, log: say });
   const rebuildS = seconds(t);
   const printedAgain = again.built.filter((b) => b.pdf !== null).length;
+  // ---- packsmith serve: a save of the biggest job until the open preview shows it
+  const preview = await previewRefresh(archive.jobs, chromium);
+  say(`preview refresh ${describeTimes(preview.saveToPage)}`);
   const nodeMb = process.resourceUsage().maxRSS / 1024;
 
   const n = packs.length;
@@ -118,6 +122,7 @@ async function main() {
     ['PDF stage, all packs', `${oursS.toFixed(1)} s`, `${bareS.toFixed(1)} s`, `${width} pages at once`],
     ['full build (HTML + PDF + index)', `${fullS.toFixed(1)} s`, '', `${full.built.length} packs`],
     ['rebuild after one changed reading', `${rebuildS.toFixed(1)} s`, '', `${printedAgain} of ${n} packs printed again; ratio to full ${(rebuildS / fullS).toFixed(2)}`],
+    [`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, ${preview.saveToPage.length} saves; of which render ${describeTimes(preview.render)}`],
     ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
     ['peak memory, node (whole bench)', `${nodeMb.toFixed(0)} MB`, '', ''],
   ];

@@ -13,22 +13,53 @@ import { breakingLevel } from './fault-level.js';
 import { stages, traced } from './history.js';
 import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
 import { circuitDeparture, ruleDepartures, strictRules, type Departure } from './departures.js';
+import { boardAsSeen, designSource, siteOf, type CircuitSite } from './tree/site.js';
+import { originDrop } from './tree/origin.js';
+import { carry } from './tree/carry.js';
+import { fedBoards } from './tree/build.js';
+import { boardQuery, type BoardQuery } from './tree/query.js';
+import { longestRun } from './design/max-length.js';
+import { remedy } from './remedy.js';
+import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
 
+/**
+ * The parts of a circuit's context that its length changes: the design table, the drop from the
+ * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
+ */
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number) {
+  const device = { code: circuit.device, rating_a: circuit.rating_a };
+  const maker = makerIa(device, requiredS, circuit.device_ia_a);
+  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
+  const vdOrigin = originDrop(design.vd, site?.source);
+  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
+  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
+  return { design, vdOrigin, fault };
+}
+
+/**
+ * The circuit's context with another length: only what the length changes is worked again (the
+ * required time and max Zs do not depend on it). For the longest run and what would pass.
+ */
+export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
+  const circuit = { ...ctx.circuit, length_m: lengthM };
+  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s) };
+}
+
 /** Everything the checks need to know about one circuit: its design table and its readings. */
 export function circuitContext(
-  circuit: Circuit & { row: number }, board: Board, supply: Supply, rules: Rules, readings: CircuitReadings,
+  circuit: Circuit & { row: number }, given: Board, supply: Supply, rules: Rules, readings: CircuitReadings, site?: CircuitSite,
 ): CircuitContext {
-  const required = requiredDisconnection(supply.earthing, rules.u0_v, circuit, rules);
+  const required = requiredDisconnection(supply.earthing, rules.u0_v, circuit, rules, site?.feeds?.board);
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const maker = makerIa(device, required.seconds, circuit.device_ia_a);
   const mz = maxZs(device, required.seconds, rules.u0_v, rules.cmin)
     ?? (maker ? { ia_a: maker.ia_a, max_zs_ohm: (rules.u0_v * rules.cmin) / maker.ia_a, basis: maker.basis } : null);
-  const design = designOf(circuit, board, supply, rules);
-  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
-  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: required.seconds } : null });
+  const board = site ? boardAsSeen(given, site.source) : given;
+  const { design, vdOrigin, fault } = designed(circuit, board, supply, rules, site, required.seconds);
+  const pfcKa = board.pfc_ka ?? supply.pfc_ka;
   const level = breakingLevel(circuit, board, supply);
   const ctx: CircuitContext = {
     circuit,
@@ -45,6 +76,9 @@ export function circuitContext(
       cpc_min_mm2: null,
       required_disconnect_s: required.seconds,
       fault_current_max_a: level ? significant(level.amps) : null,
+      zdb_ohm: design.source ? round(design.source.ohm, 3) : null,
+      pfc_ka: pfcKa === undefined ? null : round(pfcKa, 3),
+      vd_origin_percent: vdOrigin ? round(vdOrigin.percent, 2) : null,
       // the design fault where a design Zs is known, else the one a measured Zs gives
       ...(fault.known
         ? { fault_current_a: significant(fault.current_a), disconnect_s: fault.time_s === null ? null : significant(fault.time_s) }
@@ -52,6 +86,8 @@ export function circuitContext(
     },
     design,
     fault,
+    ...(site ? { site } : {}),
+    vdOrigin,
     requiredBasis: required.basis,
     maxZsBasis: mz
       ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
@@ -81,25 +117,52 @@ export function assess(project: Project): Assessment {
   const rules = resolveRules(file.supply, file.rules, file.premises);
   const strict = strictRules(rules);
   const departures = ruleDepartures(rules, project.circuits);
+  const sources = carry(file.boards, project.circuits, file.supply, rules.u0_v);
+  const fed = fedBoards(file.boards);
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
     const board = file.boards.find((b) => b.id === circuit.board)!;
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
-    const ctx = circuitContext(circuit, board, file.supply, rules, readings);
-    const own = circuitDeparture(circuit, requiredDisconnection(file.supply.earthing, strict.u0_v, { ...circuit, disconnect_s: undefined }, strict).seconds);
+    const site = siteOf(circuit, sources, fed, project.circuits);
+    const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
+    const own = circuitDeparture(circuit, requiredDisconnection(file.supply.earthing, strict.u0_v, { ...circuit, disconnect_s: undefined }, strict, site.feeds?.board).seconds);
     if (own) departures.push(own);
     const bearing = [...departures.filter((d) => d.rule !== 'disconnect_s' && d.circuits.includes(`${circuit.board}/${circuit.ref}`)), ...(own ? [own] : [])];
     const strictCircuit = own ? { ...circuit, disconnect_s: undefined } : circuit;
-    const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings) : ctx;
+    const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
+    // the longest run and what would pass are found under the rule set's own values
+    const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
+    ctx.derived.max_length_m = longestRun((l) => atLength(strictCtx, l), circuit.length_m).length_m;
     const asOf = stages(ctx, project.rows);
+    const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
     return {
       board: circuit.board,
       ref: circuit.ref,
       description: circuit.description,
       derived: ctx.derived,
-      checks: CHECKS.map(([, check]): CheckResult => traced(withoutDepartures(check, strictCtx, bearing), asOf)),
+      checks: CHECKS.map(([id, check]): CheckResult => {
+        const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
+        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, (l) => atLength(strictCtx, l)) : null;
+        const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
+        return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
+      }),
+      ...(site.feeds ? {
+        feeds: {
+          board: site.feeds.board,
+          largest: site.feeds.largest,
+          fault_current_a: site.feeds.source.pfc.used === null ? null : significant(site.feeds.source.pfc.used * 1000),
+        },
+      } : {}),
     };
   });
-  return { job: project.name, rules, circuits, summary: summarise(circuits), departures };
+  return { job: project.name, rules, boards: [...sources.values()], circuits, summary: summarise(circuits), departures };
+}
+
+/** The failing design checks that say what would pass. */
+const REMEDIED: ReadonlySet<string> = new Set(['overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'cpc-size']);
+
+/** A feeding circuit's measured Zs check also answers for the values measured at the board it feeds. */
+function withQuery(r: CheckResult, q: BoardQuery): CheckResult {
+  return { ...r, status: worst([r.status, q.status]), basis: `${r.basis}; at the far end, ${q.basis}` };
 }
 
 export function summarise(circuits: CircuitAssessment[]): Summary {

@@ -3,11 +3,12 @@
 // They are input errors (the folder must be corrected), never guesses. Pure: validation takes
 // these rules and locates each problem in circuits.csv.
 import type { Circuit, ProjectFile } from '../model/schema.js';
-import type { CircuitRule } from '../model/validate.js';
+import type { CircuitRule, ProjectRule } from '../model/validate.js';
 import { fmt } from '../model/units.js';
 import { DEVICE_RATED_VOLTAGE } from '../reference/device-voltage.js';
 import { capacityOf } from './design/capacity.js';
 import { circuitVoltage } from './circuit-facts.js';
+import { treeProblems } from './tree/build.js';
 
 export const outOfTable: CircuitRule = (c: Circuit) => {
   const cap = capacityOf(c);
@@ -30,3 +31,10 @@ export const ratedVoltage: CircuitRule = (c: Circuit, file: ProjectFile | null) 
 };
 
 export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage];
+
+/** The tree of boards: a feeding circuit that is not in circuits.csv, or a loop, is an input error. */
+export const treeRule: ProjectRule = (file, circuitKeys) =>
+  treeProblems(file.boards, circuitKeys)
+    .map((p) => ({ path: ['boards', p.index, 'fed_by'], message: `boards.${p.index}.${p.message}` }));
+
+export const PROJECT_RULES: readonly ProjectRule[] = [treeRule];

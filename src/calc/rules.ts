@@ -109,12 +109,20 @@ export function requiredDisconnection(
   u0: number,
   circuit: Pick<Circuit, 'rating_a' | 'kind' | 'sockets' | 'disconnect_s'>,
   rules: Rules,
+  /** the board this circuit feeds: a distribution circuit */
+  feeds?: string,
 ): RequiredTime {
-  const own = tableTime(earthing, u0, circuit, rules);
+  const own = feeds !== undefined ? distributionTime(earthing, feeds) : tableTime(earthing, u0, circuit, rules);
   if (circuit.disconnect_s !== undefined) {
     return { seconds: circuit.disconnect_s, table_s: own.seconds, basis: `${fmt(circuit.disconnect_s)} s set for this circuit (the rule set's own: ${own.basis})` };
   }
   return { ...own, table_s: own.seconds };
+}
+
+/** A circuit that feeds a board is a distribution circuit (IEC 60364-4-41, 411.3.2.3/411.3.2.4). */
+function distributionTime(earthing: Supply['earthing'], feeds: string): { seconds: number; basis: string } {
+  const s = earthing === 'TT' ? DISTRIBUTION_TT_S : DISTRIBUTION_TN_S;
+  return { seconds: s, basis: `${s} s: distribution circuit feeding ${feeds} (IEC 60364-4-41, 411.3.2.3/411.3.2.4)` };
 }
 
 function tableTime(earthing: Supply['earthing'], u0: number, circuit: Pick<Circuit, 'rating_a' | 'kind' | 'sockets'>, rules: Rules): { seconds: number; basis: string } {

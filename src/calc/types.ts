@@ -5,6 +5,9 @@ import type { CircuitReadings } from '../model/readings.js';
 import type { Rules } from './rules.js';
 import type { Design } from './design/index.js';
 import type { DesignFault } from './design/fault.js';
+import type { BoardSource, VdLeg } from './tree/carry.js';
+import type { CircuitSite } from './tree/site.js';
+import type { DeviceCode } from '../reference/device-codes.js';
 import type { Departure } from './departures.js';
 
 export const STATUSES = ['pass', 'fail', 'attention', 'not-verified', 'n/a'] as const;
@@ -13,7 +16,7 @@ export type Status = (typeof STATUSES)[number];
 export const CHECK_IDS = [
   'overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity',
   'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt',
-  'additional-protection', 'cpc-size',
+  'additional-protection', 'cpc-size', 'selectivity',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 
@@ -34,6 +37,8 @@ export interface CheckResult {
    * oldest first, the last entry being this result. Absent when it was judged once.
    */
   history?: HistoryEntry[];
+  /** on a failing design check: the nearest change that would pass it, computed (one plain line) */
+  remedy?: string;
 }
 
 export interface HistoryEntry {
@@ -65,6 +70,16 @@ export interface CircuitContext {
   requiredBasis: string;
   /** why max Zs is what it is (or why it is unknown) */
   maxZsBasis: string;
+  /** where the circuit stands in the tree of boards (absent: a board fed from the origin, as given) */
+  site?: CircuitSite;
+  /** voltage drop from the origin to the far end (null where a feeding circuit's drop is not known) */
+  vdOrigin?: VdOrigin | null;
+}
+
+export interface VdOrigin {
+  percent: number;
+  /** the feeding circuits from the origin to the circuit's board */
+  legs: VdLeg[];
 }
 
 export type Check = (ctx: CircuitContext) => CheckResult;
@@ -75,6 +90,8 @@ export interface CircuitAssessment {
   description: string;
   derived: Derived;
   checks: CheckResult[];
+  /** a circuit that feeds a board: the board, its largest device and the fault current there (for selectivity) */
+  feeds?: { board: string; largest: { ref: string; code: DeviceCode; rating_a: number } | null; fault_current_a: number | null };
 }
 
 export type Summary = Record<Status, number>;
@@ -82,6 +99,8 @@ export type Summary = Record<Status, number>;
 export interface Assessment {
   job: string;
   rules: Rules;
+  /** the tree of boards: what feeds each, and the values carried down to it */
+  boards?: BoardSource[];
   circuits: CircuitAssessment[];
   summary: Summary;
   /** rule values less strict than the rule set's own, each with the circuits it affects */

@@ -1,5 +1,6 @@
 // The raw records read from a job folder: text as written, with the position of every value,
 // so that validation can report `file:row:column: message`.
+import type { Firm } from './firm.js';
 
 /** Where a value stands: file relative to the job folder, 1-based line and column. */
 export interface SourcePosition {
@@ -46,7 +47,10 @@ export interface RawJob {
   /** the job folder's name: used in output paths */
   name: string;
   dir: string;
+  /** project.yaml with the firm file's settings merged beneath it (see load/firm.ts) */
   project: RawYaml | null;
+  /** the firm settings that apply (the nearest packsmith.yaml above the job), or null */
+  firm: Firm | null;
   circuits: RawTable | null;
   sessions: RawSession[];
   notes: { file: string; text: string } | null;

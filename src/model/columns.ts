@@ -3,6 +3,7 @@
 // unedited. A header's unit, in brackets at its end, is the unit of the numbers written without
 // one; a unit that does not fit the field is an error at the header. A column mapped to "ignore"
 // is left out on purpose; a column neither known nor mapped stays, to be reported as unknown.
+// circuits.csv has the same mapping (`circuits.columns`), without units in headers.
 import type { LocatedError, RawCell, RawTable } from '../load/raw.js';
 import { IGNORE_COLUMN, MEASURED, READING_COLUMNS, type MeasuredField } from './schema.js';
 import { QUANTITIES, unitFits } from './units.js';
@@ -20,7 +21,14 @@ const norm = (s: string): string => s.normalize('NFKC').trim();
 const HEADER_UNIT = /[([]\s*([^()[\]]*?)\s*[)\]]\s*$/;
 const isMeasured = (field: string): field is MeasuredField => field in MEASURED;
 
-export function mapColumns(table: RawTable, columns: Readonly<Record<string, string>>): MappedTable {
+/**
+ * `known`: the columns of the file (readings by default; circuits.csv passes its own);
+ * `measured`: the columns whose header may name a unit (none for circuits.csv).
+ */
+export function mapColumns(
+  table: RawTable, columns: Readonly<Record<string, string>>,
+  known: readonly string[] = READING_COLUMNS, measured: Readonly<Record<string, unknown>> = MEASURED,
+): MappedTable {
   const errors: LocatedError[] = [];
   const units: Partial<Record<MeasuredField, string>> = {};
   const mapping = new Map(Object.entries(columns).map(([k, v]) => [norm(k), v]));
@@ -31,7 +39,7 @@ export function mapColumns(table: RawTable, columns: Readonly<Record<string, str
     const mapped = mapping.get(norm(h.text));
     if (mapped === IGNORE_COLUMN) continue;
     const field = mapped ?? h.text;
-    if (mapped !== undefined || (READING_COLUMNS as readonly string[]).includes(h.text)) {
+    if (mapped !== undefined || known.includes(h.text)) {
       const first = given.get(field);
       if (first) {
         errors.push({ file: table.file, row: 1, column: h.column, message: `column "${h.text}" gives ${field}, as column ${first.column} "${first.text}" does; one column per field` });
@@ -39,7 +47,7 @@ export function mapColumns(table: RawTable, columns: Readonly<Record<string, str
       }
       given.set(field, h);
     }
-    if (mapped !== undefined && isMeasured(field)) {
+    if (mapped !== undefined && field in measured && isMeasured(field)) {
       const unit = HEADER_UNIT.exec(h.text)?.[1];
       if (unit !== undefined && unit !== '') {
         const q = QUANTITIES[MEASURED[field]];

@@ -36,7 +36,7 @@ export function readingRowSchema(units: Partial<Record<MeasuredField, string>> =
   return z.object({
     board: word('the board id'),
     ref: word('the circuit reference'),
-    ...(Object.fromEntries(Object.entries(MEASURED).map(([k, q]) => [k, reading(q, units[k as MeasuredField]).optional()])) as Record<
+    ...(Object.fromEntries(Object.entries(MEASURED).map(([k, q]) => [k, reading(q, units[k as MeasuredField], k).optional()])) as Record<
       MeasuredField,
       z.ZodOptional<ReturnType<typeof reading>>
     >),
@@ -80,14 +80,14 @@ export const SupplySchema = z.strictObject({
   earthing: choice(EARTHING, 'the earthing system').refine((e) => e !== 'IT', {
     error: 'found "IT": IT systems are not assessed (IEC 60364-4-41, 411.6 is not built); packsmith assesses TN-S, TN-C-S and TT',
   }),
-  u0_v: quantity('volt', { positive: true }).default(230),
+  u0_v: quantity('volt', { positive: true, field: 'u0_v' }).default(230),
   phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
   frequency_hz: z.number({ error: 'expected the frequency in Hz, e.g. 50' }).default(50),
-  ze_ohm: quantity('ohm').optional(),
-  pfc_ka: quantity('kiloampere').optional(),
+  ze_ohm: quantity('ohm', { field: 'ze_ohm' }).optional(),
+  pfc_ka: quantity('kiloampere', { field: 'pfc_ka' }).optional(),
   /** three-phase prospective fault current at the origin, where measured or given (else ≈ 2 × pfc_ka) */
-  pfc_3ph_ka: quantity('kiloampere').optional(),
-  ra_ohm: quantity('ohm').optional(),
+  pfc_3ph_ka: quantity('kiloampere', { field: 'pfc_3ph_ka' }).optional(),
+  ra_ohm: quantity('ohm', { field: 'ra_ohm' }).optional(),
   main_switch: word('the main switch, e.g. "100 A 2-pole"').optional(),
 });
 
@@ -118,13 +118,18 @@ export const RulesSchema = z.strictObject({
   r1r2_tolerance_ohm: z.number({ error: 'expected a resistance in ohms, e.g. 0.05' }).min(0).max(1).optional(),
 });
 
+// A board id never holds "/": a circuit is named "BOARD/REF" (fed_by, data.json), which must name one circuit only.
 export const BoardSchema = z.strictObject({
-  id: word('a board id, e.g. DB1'),
+  id: word('a board id, e.g. DB1').refine((id) => !id.includes('/'), {
+    error: (iss) => `found "${String(iss.input)}"; a board id cannot hold "/" (a circuit is named BOARD/REF)`,
+  }),
   location: word('where the board is').optional(),
-  zdb_ohm: quantity('ohm').optional(),
-  pfc_ka: quantity('kiloampere').optional(),
+  zdb_ohm: quantity('ohm', { field: 'zdb_ohm' }).optional(),
+  pfc_ka: quantity('kiloampere', { field: 'pfc_ka' }).optional(),
   /** three-phase prospective fault current at the board, where measured or given */
-  pfc_3ph_ka: quantity('kiloampere').optional(),
+  pfc_3ph_ka: quantity('kiloampere', { field: 'pfc_3ph_ka' }).optional(),
+  /** the circuit that feeds this board, as BOARD/REF (a sub-main in circuits.csv); absent: fed from the origin */
+  fed_by: word('the feeding circuit as BOARD/REF, e.g. DB1/4').optional(),
 });
 
 export const PREMISES = ['dwelling', 'other'] as const;
@@ -151,8 +156,18 @@ export const ProjectFileSchema = z.strictObject({
   /** dwelling (default: the stricter rules apply) or other premises */
   premises: choice(PREMISES, 'the kind of premises').default('dwelling'),
   rules: RulesSchema.default({ set: 'iec-60364' }),
-  boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' }),
+  boards: z.array(BoardSchema, { error: 'expected a list of boards' }).min(1, { error: 'list at least one board' })
+    .superRefine((boards, ctx) => {
+      const first = new Map<string, number>();
+      boards.forEach((b, i) => {
+        const at = first.get(b.id);
+        if (at === undefined) first.set(b.id, i);
+        else ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `board "${b.id}" is listed twice (also board ${at + 1} of the list); every board id names one board` });
+      });
+    }),
   readings: ReadingsSettingsSchema.default({ columns: {} }),
+  /** how a spreadsheet's own column headers map onto circuits.csv's columns, or "ignore" */
+  circuits: z.lazy(() => CircuitsSettingsSchema).default({ columns: {} }),
   /** a firm's theme folder, relative to the job folder (templates, partials, stylesheet, logo) */
   theme: word('a theme folder, e.g. ../../themes/my-firm').optional(),
   paper: choice(PAPER, 'the paper size').optional(),
@@ -213,3 +228,10 @@ export type Circuit = z.output<typeof CircuitSchema>;
 export const CIRCUIT_REQUIRED = ['board', 'ref', 'description', 'kind', 'ib_a', 'device', 'rating_a',
   'live_mm2', 'cpc_mm2', 'length_m', 'method'] as const;
 export const CIRCUIT_COLUMNS = Object.keys(CircuitSchema.shape);
+
+/** circuits: in project.yaml — a spreadsheet's column headers → circuits.csv columns, or "ignore". */
+export const CircuitsSettingsSchema = z.strictObject({
+  columns: z.record(z.string(), choice([IGNORE_COLUMN, ...(CIRCUIT_COLUMNS as [string, ...string[]])], 'a circuits.csv column or "ignore"'))
+    .default({}),
+});
+export type CircuitsSettings = z.output<typeof CircuitsSettingsSchema>;

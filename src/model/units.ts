@@ -5,6 +5,8 @@
 // `ir_le_mohm` in megohms, `rcd_1x_ms` in milliseconds). A unit written in the cell is
 // converted to that unit; a unit of another quantity is an error, never a guess.
 
+import { PLAIN_NUMBER, plainText } from '../load/number.js';
+
 export type Quantity =
   | 'ohm'
   | 'megohm'
@@ -84,6 +86,8 @@ export const QUANTITIES: Record<Quantity, QuantityInfo> = {
 
 export type CellResult = { ok: true; reading: Reading } | { ok: false; message: string };
 
+// The number grammar (load/number.ts) is strict; this looser pattern only finds what was meant
+// by a number it refuses (1e-3, .690, 6., +5), to say what to write instead.
 const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+\s*\S*$/;
 
@@ -114,6 +118,12 @@ export function parseCell(text: string, quantity: Quantity, columnUnit = ''): Ce
     };
   }
   let value = Number(m[1]);
+  if (!PLAIN_NUMBER.test(m[1]!)) {
+    const plain = Number.isFinite(value) && value !== 0 && Math.abs(value) < 1e12 && Math.abs(value) > 1e-9 ? plainText(value) : null;
+    return { ok: false, message: `found "${raw}"; write the number as a plain decimal${plain !== null ? `, e.g. "${bound ? '>' : ''}${plain}${m[2] ? ` ${m[2]}` : ''}"` : ''} (no exponent, no point without digits on both sides, no "+")` };
+  }
+  if (!Number.isFinite(value)) return { ok: false, message: `found "${raw}"; the number is too large for any reading` };
+  const negative = m[1]!.startsWith('-');
   const written = (m[2] ?? '').replace(/\s+/g, '');
   const unit = written === '' ? columnUnit.replace(/\s+/g, '') : written;
   if (unit !== '') {
@@ -129,7 +139,7 @@ export function parseCell(text: string, quantity: Quantity, columnUnit = ''): Ce
   if (quantity === 'millisecond' && written === '' && value > 0 && value < 1) {
     return { ok: false, message: `found "${raw}", which looks like seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };
   }
-  if (info.nonNegative && value < 0) {
+  if (info.nonNegative && (value < 0 || negative)) {
     return { ok: false, message: `found "${raw}"; ${info.words.replace(/^an? /, 'a ')} cannot be negative` };
   }
   if (quantity === 'count' && !Number.isInteger(value)) {

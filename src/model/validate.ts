@@ -1,14 +1,16 @@
 // Raw records → the validated Project. Every problem is collected (never only the first) and
 // located as file:row:column, in words a site electrician understands.
 import type { z } from 'zod';
-import type { LocatedError, RawJob, RawTable } from '../load/raw.js';
+import type { LocatedError, RawJob, RawTable, RawYaml } from '../load/raw.js';
+import { FirmFileSchema } from './firm.js';
 import {
   CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, CircuitSchema, ProjectFileSchema, READING_COLUMNS, readingRowSchema,
-  ReadingsSettingsSchema, type Circuit, type ProjectFile, type ReadingsSettings,
+  ReadingsSettingsSchema, CircuitsSettingsSchema, type Circuit, type ProjectFile, type ReadingsSettings,
 } from './schema.js';
 import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
 import { ratingProblem } from './device-rating.js';
+import { deviceHint } from './device-hint.js';
 
 export interface CircuitRecord extends Circuit {
   /** line of the circuit in circuits.csv */
@@ -33,25 +35,33 @@ function describe(issue: z.core.$ZodIssue): string {
   return issue.message;
 }
 
+/** Where the format is described, for messages (generated from these schemas: npm run docs). */
+export const FORMAT_DOC = 'docs/job-folder.md';
+
 function yamlErrors(job: RawJob): { file: ProjectFile | null; errors: LocatedError[] } {
-  const doc = job.project;
-  if (!doc) return { file: null, errors: [] };
-  const parsed = ProjectFileSchema.safeParse(doc.data);
-  if (parsed.success) return { file: parsed.data, errors: [] };
+  const firm = job.firm?.doc ? parseYaml(job.firm.doc, FirmFileSchema).errors : [];
+  if (!job.project) return { file: null, errors: firm };
+  const own = parseYaml(job.project, ProjectFileSchema);
+  return { file: own.data, errors: [...firm, ...own.errors] };
+}
+
+function parseYaml<S extends z.ZodType>(doc: RawYaml, schema: S): { data: z.output<S> | null; errors: LocatedError[] } {
+  const parsed = schema.safeParse(doc.data);
+  if (parsed.success) return { data: parsed.data, errors: [] };
   const errors: LocatedError[] = [];
   for (const issue of parsed.error.issues) {
     const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
     if (issue.code === 'unrecognized_keys') {
       for (const key of issue.keys) {
         const where = [...path, key].join('.');
-        errors.push({ ...doc.positionOf([...path, key]), message: `${where}: unknown field; check its spelling against CONTRACT.md` });
+        errors.push({ ...doc.positionOf([...path, key]), message: `${where}: unknown field; check its spelling against ${FORMAT_DOC}` });
       }
       continue;
     }
     const where = path.length > 0 ? `${path.join('.')}: ` : '';
     errors.push({ ...doc.positionOf(path), message: `${where}${describe(issue)}` });
   }
-  return { file: null, errors };
+  return { data: null, errors };
 }
 
 /** Parse every row of a table with a zod schema; unknown and missing columns reported once. */
@@ -62,6 +72,7 @@ function tableRows<S extends z.ZodType>(
   required: readonly string[],
   errors: LocatedError[],
   hint = '',
+  cellHint: (field: string, text: string) => string = () => '',
 ): { row: number; values: z.output<S> }[] {
   const headerRow = 1;
   const names = new Set(table.header.map((h) => h.text));
@@ -86,7 +97,8 @@ function tableRows<S extends z.ZodType>(
       const field = String(issue.path[0] ?? '');
       if (missing.includes(field)) continue; // already reported at the header
       const column = r.cells[field]?.column ?? table.header.find((h) => h.text === field)?.column ?? 1;
-      errors.push({ file: table.file, row: r.row, column, message: `${field}: ${describe(issue)}` });
+      const text = r.cells[field]?.text;
+      errors.push({ file: table.file, row: r.row, column, message: `${field}: ${describe(issue)}${text === undefined ? '' : cellHint(field, text)}` });
     }
   }
   return out;
@@ -98,16 +110,29 @@ function tableRows<S extends z.ZodType>(
  */
 export type CircuitRule = (circuit: Circuit, file: ProjectFile | null) => { field: string; message: string } | null;
 
-export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = []): Validation {
+export interface ValidateOptions {
+  /** today's date (YYYY-MM-DD), passed in by the caller that reads the clock: a test session dated later is an error */
+  today?: string;
+}
+
+/**
+ * A further rule on a valid project.yaml with the BOARD/REF keys of circuits.csv (e.g. the tree of
+ * boards), injected by the caller: each problem names the path of the project.yaml value it is about.
+ */
+export type ProjectRule = (file: ProjectFile, circuitKeys: ReadonlySet<string>) => { path: (string | number)[]; message: string }[];
+
+export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [], projectRules: readonly ProjectRule[] = [], opts: ValidateOptions = {}): Validation {
   const errors: LocatedError[] = [...job.errors];
   const { file, errors: yErrors } = yamlErrors(job);
-  errors.push(...yErrors);
+  for (const e of yErrors) errors.push(e);
 
   const circuits: CircuitRecord[] = [];
   const known = new Set<string>();
   const boards = boardIds(job);
   if (job.circuits) {
-    const table = job.circuits;
+    const mapped = mapColumns(job.circuits, circuitSettings(job, file).columns, CIRCUIT_COLUMNS, {});
+    errors.push(...mapped.errors);
+    const table = mapped.table;
     // Identity first, on the raw cells, so a row with other mistakes is still checked.
     const seen = new Map<string, number>();
     const duplicate = new Set<number>();
@@ -130,7 +155,7 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
       (c) => { const m = ratingProblem(c.device, c.rating_a); return m ? { field: 'rating_a', message: m } : null; },
       ...circuitRules,
     ];
-    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors)) {
+    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors, '', circuitHint)) {
       const problems = rules.map((rule) => rule(values, file)).filter((p) => p !== null);
       const cells = table.rows.find((r) => r.row === row)?.cells;
       for (const p of problems) {
@@ -144,8 +169,11 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
   const sessionRows: SessionRow[] = [];
   const { columns } = readingSettings(job, file);
   for (const s of job.sessions) {
+    if (opts.today !== undefined && s.date > opts.today) {
+      errors.push({ file: s.table.file, row: 1, column: 1, message: `test session dated ${s.date}, after today (${opts.today}); a readings file is named after the day its tests were done` });
+    }
     const mapped = mapColumns(s.table, columns);
-    errors.push(...mapped.errors);
+    for (const e of mapped.errors) errors.push(e);
     const table = mapped.table;
     const seen = new Map<string, number>();
     const skip = new Set<number>();
@@ -171,6 +199,12 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
     }
   }
 
+  if (file && job.project && job.circuits) {
+    for (const rule of projectRules) {
+      for (const p of rule(file, known)) errors.push({ ...job.project.positionOf(p.path), message: p.message });
+    }
+  }
+
   if (errors.length > 0 || !file) return { ok: false, errors: sortErrors(errors, job) };
   return {
     ok: true,
@@ -186,6 +220,9 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [])
   };
 }
 
+/** A device written the usual ways ("B32", "C16 RCBO") gets a hint at its code and rating. */
+const circuitHint = (field: string, text: string): string => (field === 'device' ? deviceHint(text) : '');
+
 const MAP_HINT = '; an instrument\'s column is mapped onto one of these (or to "ignore") under readings.columns in project.yaml';
 
 /** The readings settings of project.yaml, even when other parts of it are invalid. */
@@ -196,6 +233,14 @@ function readingSettings(job: RawJob, file: ProjectFile | null): ReadingsSetting
   return parsed.success ? parsed.data : { columns: {} };
 }
 
+/** The circuits settings of project.yaml, even when other parts of it are invalid. */
+function circuitSettings(job: RawJob, file: ProjectFile | null): { columns: Record<string, string> } {
+  if (file) return file.circuits;
+  const raw = (job.project?.data as { circuits?: unknown } | null)?.circuits;
+  const parsed = CircuitsSettingsSchema.safeParse(raw ?? {});
+  return parsed.success ? parsed.data : { columns: {} };
+}
+
 /** Board ids as written in project.yaml, even when other parts of it are invalid. */
 function boardIds(job: RawJob): Set<string> | null {
   const boards = (job.project?.data as { boards?: unknown } | null)?.boards;
@@ -203,8 +248,31 @@ function boardIds(job: RawJob): Set<string> | null {
   return new Set(boards.map((b) => String((b as { id?: unknown } | null)?.id ?? '')).filter((id) => id !== ''));
 }
 
+/** Errors shown per file: a file broken throughout says so once it has shown this many. */
+export const MAX_ERRORS_PER_FILE = 200;
+
+/** Every problem once (a firm file's value is checked as the firm's and as the job's), in file order, at most MAX_ERRORS_PER_FILE per file. */
 function sortErrors(errors: LocatedError[], job: RawJob): LocatedError[] {
-  const order = ['project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
+  const order = [...(job.firm ? [job.firm.file] : []), 'project.yaml', 'circuits.csv', ...job.sessions.map((s) => s.table.file)];
   const rank = (f: string) => (order.indexOf(f) === -1 ? order.length : order.indexOf(f));
-  return [...errors].sort((a, b) => rank(a.file) - rank(b.file) || a.row - b.row || a.column - b.column);
+  const seen = new Set<string>();
+  const once = errors.filter((e) => {
+    const k = `${e.file}:${e.row}:${e.column}: ${e.message}`;
+    if (seen.has(k)) return false;
+    seen.add(k);
+    return true;
+  });
+  const sorted = once.sort((a, b) => rank(a.file) - rank(b.file) || a.file.localeCompare(b.file) || a.row - b.row || a.column - b.column);
+  const shown: LocatedError[] = [];
+  const perFile = new Map<string, number>();
+  for (const e of sorted) {
+    const n = (perFile.get(e.file) ?? 0) + 1;
+    perFile.set(e.file, n);
+    if (n <= MAX_ERRORS_PER_FILE) shown.push(e);
+    else if (n === MAX_ERRORS_PER_FILE + 1) {
+      const more = sorted.filter((x) => x.file === e.file).length - MAX_ERRORS_PER_FILE;
+      shown.push({ ...e, message: `and ${more} more problem(s) in ${e.file} from here on; fix the ones above first (is it the right file?)` });
+    }
+  }
+  return shown;
 }

@@ -1,7 +1,10 @@
-// A printed PDF made reproducible and self-describing: Chromium's output differs run to run only
-// in its creation and modification dates, so both are set to the pack's date and the producer
-// fields are fixed; title, author (the firm) and subject (the job) are set, and data.json rides
-// along as an embedded file.
+// A printed PDF made reproducible and self-describing: Chromium's output differs run to run in
+// its creation and modification dates, so both are set to the pack's date and the producer fields
+// are fixed, and in the ids of its structure tree, which are renumbered (structure-ids.ts);
+// title, author (the firm) and subject (the job) are set, and data.json rides along as an
+// embedded file.
+import { normaliseStructureIds } from './structure-ids.js';
+import { dayOf } from '../model/dates.js';
 
 export interface PdfMetadata {
   title: string;
@@ -17,16 +20,9 @@ export interface PdfMetadata {
   attachments: { name: string; bytes: Uint8Array; mimeType: string; description: string }[];
 }
 
-/** Midnight UTC of a YYYY-MM-DD date: a fixed instant, whatever the machine's time zone. */
-export function dayOf(date: string): Date {
-  const d = new Date(`${date}T00:00:00Z`);
-  if (Number.isNaN(d.getTime())) throw new Error(`not a date: "${date}" (expected YYYY-MM-DD)`);
-  return d;
-}
-
 export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {
   const { PDFDocument } = await import('pdf-lib'); // loaded only by a run that prints
-  const doc = await PDFDocument.load(pdf, { updateMetadata: false });
+  const doc = await PDFDocument.load(normaliseStructureIds(pdf), { updateMetadata: false });
   const when = dayOf(meta.date);
   doc.setTitle(meta.title);
   doc.setAuthor(meta.author);

@@ -1,5 +1,6 @@
 // HTML file → PDF. JavaScript is off and every request other than the pack file itself (and
-// data: URLs inside it) is refused, so a pack cannot reach the network or run code.
+// data: URLs inside it) is refused, so a pack cannot reach the network or run code. A pack that
+// tries to navigate away (a meta refresh, even to a data: URL) is refused and not printed.
 // The PDF is tagged (headings, tables, lists keep their structure for assistive technology) and
 // carries an outline built from the pack's headings: one bookmark per section, board and circuit.
 import { pathToFileURL } from 'node:url';
@@ -22,7 +23,8 @@ export function pdfOptions(opts: PdfOptions): PDFOptions {
     displayHeaderFooter: true,
     headerTemplate: opts.header,
     footerTemplate: opts.footer,
-    preferCSSPageSize: false,
+    // the pack's @page rules choose the sheet: its paper, and landscape for the board schedules
+    preferCSSPageSize: true,
     margin: { top: '18mm', bottom: '16mm', left: '14mm', right: '14mm' },
     tagged: true,
     outline: true,
@@ -41,21 +43,36 @@ export async function preparePage(page: Page): Promise<PrintPage> {
   await page.setRequestInterception(true);
   let own: string | null = null;
   let refused: string[] = [];
+  let navigation: string | null = null;
   page.on('request', (req) => {
     const url = req.url();
-    if (url === own || url.startsWith('data:')) void req.continue();
+    const navigating = req.isNavigationRequest() && req.frame() === page.mainFrame();
+    if (navigating ? url === own && navigation === null : url === own || url.startsWith('data:')) void req.continue();
     else {
       refused.push(url);
+      if (navigating && url !== own) navigation ??= url;
       void req.abort('blockedbyclient');
     }
   });
+  const away = (): Error | null =>
+    navigation === null ? null : new Error(`the pack ${own} tries to open ${navigation.slice(0, 120)} (a meta refresh or link in a template?); packsmith prints only the pack itself, so it was not printed`);
   return {
     page,
     async print(htmlPath, opts) {
       own = pathToFileURL(htmlPath).href;
       refused = [];
+      navigation = null;
       await page.goto(own, { waitUntil: 'load' });
-      const pdf = await page.pdf(pdfOptions(opts));
+      let err = away();
+      if (err) throw err;
+      let pdf: Uint8Array;
+      try {
+        pdf = await page.pdf(pdfOptions(opts));
+      } catch (e) {
+        throw away() ?? e; // the refused navigation is the cause worth naming
+      }
+      err = away();
+      if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
       return { pdf, refused };
     },
   };

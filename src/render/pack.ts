@@ -5,6 +5,7 @@ import type { Project } from '../model/validate.js';
 import type { Assessment } from '../calc/types.js';
 import { buildView, type RenderOptions, type ThemeAssets } from './view.js';
 import { createEngine, type Engine } from './engine.js';
+import { inlineCss, withCsp } from './csp.js';
 
 export interface RenderedPack {
   html: string;
@@ -15,18 +16,18 @@ export interface RenderedPack {
 
 export function themeAssets(engine: Engine): ThemeAssets {
   const logo = engine.files.logo();
-  return { css: `${engine.asset('pack.css')}\n${engine.asset('theme.css')}`, logo: logo ? { src: logo.src } : null };
+  return { css: inlineCss(`${engine.asset('pack.css')}\n${engine.asset('theme.css')}`), logo: logo ? { src: logo.src } : null };
 }
 
 export function renderPackFiles(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): RenderedPack {
   const view = buildView(project, assessment, opts, themeAssets(engine));
   return {
-    html: engine.render('pack.hbs', view),
+    html: withCsp(engine.render('pack.hbs', view)),
     header: engine.render('print-header.hbs', view),
     footer: engine.render('print-footer.hbs', view),
   };
 }
 
 export function renderPack(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): string {
-  return engine.render('pack.hbs', buildView(project, assessment, opts, themeAssets(engine)));
+  return withCsp(engine.render('pack.hbs', buildView(project, assessment, opts, themeAssets(engine))));
 }

@@ -11,11 +11,15 @@ export interface CurveSnippetOptions {
   faultCurrentA?: number | null;
   requiredS?: number | null;
   title?: string;
+  /** a second device (the largest downstream of a feeding circuit), its band drawn hatched, and the current selectivity is judged up to */
+  downstream?: { device: Device; label: string; uptoA: number | null };
 }
 
-const WIDTH = 360;
-const HEIGHT = 260;
-const M = { left: 50, right: 14, top: 12, bottom: 38 };
+// Drawn to print about 62 mm wide: 10-unit text is then about 6.8 pt, readable on paper.
+const WIDTH = 260;
+const HEIGHT = 170;
+const M = { left: 40, right: 8, top: 8, bottom: 30 };
+const FONT = 10;
 const PW = WIDTH - M.left - M.right;
 const PH = HEIGHT - M.top - M.bottom;
 const I_MIN = 1;
@@ -52,11 +56,11 @@ function grid(): string[] {
   const out: string[] = [];
   for (const i of x.ticks(4)) {
     out.push(`<line class="grid" data-current-a="${fmt(i)}" x1="${c(x(i))}" y1="0.0" x2="${c(x(i))}" y2="${c(PH)}"/>`);
-    out.push(`<text class="tick" x="${c(x(i))}" y="${c(PH + 12)}" text-anchor="middle">${decadeLabel(i)}</text>`);
+    out.push(`<text class="tick" x="${c(x(i))}" y="${c(PH + 11)}" text-anchor="middle">${decadeLabel(i)}</text>`);
   }
   for (const t of y.ticks(6)) {
     out.push(`<line class="grid" data-time-s="${fmt(t)}" x1="0.0" y1="${c(y(t))}" x2="${c(PW)}" y2="${c(y(t))}"/>`);
-    out.push(`<text class="tick" x="-4.0" y="${c(y(t) + 3)}" text-anchor="end">${decadeLabel(t)}</text>`);
+    out.push(`<text class="tick" x="-3.0" y="${c(y(t) + 3.5)}" text-anchor="end">${decadeLabel(t)}</text>`);
   }
   return out;
 }
@@ -88,6 +92,25 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     desc.push(`The device library holds no published time-current points for ${name}.`);
   }
 
+  const down = opts.downstream ? characteristic(opts.downstream.device) : null;
+  const hatch = `ps-hatch-${title.replace(/[^A-Za-z0-9]+/g, '-')}`;
+  if (opts.downstream && down) {
+    const slow = edgePath(down.slowest);
+    if (down.fastest) {
+      const fast = edgePath(down.fastest);
+      const [fl, tl] = fast[fast.length - 1]!;
+      plot.push(`<polygon class="band2" fill="url(#${hatch})" points="${toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()])}"/>`);
+    }
+    plot.push(`<polyline class="slowest2" points="${toXY(slow)}"/>`);
+    desc.push(`The hatched band is ${opts.downstream.label} (${down.source}), the largest device on the board this circuit feeds.`);
+    const upto = opts.downstream.uptoA;
+    if (upto !== null && upto >= I_MIN && upto <= I_MAX) {
+      plot.push(`<line class="upto" x1="${c(x(upto))}" y1="0.0" x2="${c(x(upto))}" y2="${c(PH)}"/>`);
+      over.push(`<text class="note" x="${c(x(upto) - 3)}" y="${c(PH - 4)}" text-anchor="end">${escape(`${fmt(upto)} A at the fed board`)}</text>`);
+      desc.push(`The dotted line is the prospective fault current at that board, ${fmt(upto)} A: selectivity is judged up to it.`);
+    }
+  }
+
   const required = opts.requiredS ?? null;
   if (required !== null && required >= T_MIN && required <= T_MAX) {
     const yr = c(y(required));
@@ -115,13 +138,16 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
   }
 
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans, sans-serif" font-size="9">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans Condensed, DejaVu Sans, sans-serif" font-size="${FONT}">`,
     `<title>${escape(title)}</title>`,
     `<desc>${escape(desc.join(' '))}</desc>`,
-    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
+    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.note{paint-order:stroke;stroke:#fff;stroke-width:3px;stroke-linejoin:round}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
       + '.slowest{fill:none;stroke:#1d3f66;stroke-width:1.5}.fastest{fill:none;stroke:#1d3f66;stroke-width:0.75}'
       + '.required{stroke:#a33;stroke-width:1;stroke-dasharray:4 3}.fault{stroke:#333;stroke-width:0.75;stroke-dasharray:1 2}'
-      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}</style>',
+      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}'
+      + (opts.downstream ? '.band2{stroke:none}.slowest2{fill:none;stroke:#6a4a00;stroke-width:1.2;stroke-dasharray:5 2}.upto{stroke:#6a4a00;stroke-width:0.75;stroke-dasharray:1 2}' : '')
+      + '</style>',
+    ...(opts.downstream ? [`<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`] : []),
     `<g transform="translate(${M.left},${M.top})">`,
     ...grid(),
     `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,
@@ -129,8 +155,8 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     '</svg>',
     `<rect class="frame" x="0" y="0" width="${PW}" height="${PH}"/>`,
     ...over,
-    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 28)}" text-anchor="middle">prospective fault current (A)</text>`,
-    `<text class="axis" transform="translate(-36,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
+    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 24)}" text-anchor="middle">prospective fault current (A)</text>`,
+    `<text class="axis" transform="translate(-29,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
     '</g>',
     '</svg>',
   ].join('\n');

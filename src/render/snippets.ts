@@ -3,7 +3,7 @@
 // `circuitSnippet` draws it with the device library's band (snippet.ts).
 import type { CircuitRecord } from '../model/validate.js';
 import type { CircuitReadings } from '../model/readings.js';
-import type { Derived } from '../calc/types.js';
+import type { CircuitAssessment, Derived } from '../calc/types.js';
 import type { Rules } from '../calc/rules.js';
 import { fmt } from '../model/units.js';
 import type { Device } from '../calc/devices/index.js';
@@ -14,6 +14,8 @@ export interface SnippetRequest {
   faultCurrentA: number | null;
   requiredS: number | null;
   title: string;
+  /** a feeding circuit: the largest device of the board it feeds, drawn beside its own band, up to the fault current there */
+  downstream?: { device: Device; label: string; uptoA: number | null };
 }
 
 export interface SnippetPlan {
@@ -22,7 +24,9 @@ export interface SnippetPlan {
   caption: string;
 }
 
-export function snippetRequest(circuit: CircuitRecord, derived: Partial<Derived>, readings: CircuitReadings, rules: Rules): SnippetPlan {
+export function snippetRequest(
+  circuit: CircuitRecord, derived: Partial<Derived>, readings: CircuitReadings, rules: Rules, feeds?: CircuitAssessment['feeds'],
+): SnippetPlan {
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const requiredS = derived.required_disconnect_s ?? null;
   const title = `${circuit.board} ${circuit.ref}: ${circuit.device} ${fmt(circuit.rating_a)} A`;
@@ -42,6 +46,12 @@ export function snippetRequest(circuit: CircuitRecord, derived: Partial<Derived>
     caption = `fault point at design Zs${typeof derived.zs_design_ohm === 'number' ? ` ${fmt(derived.zs_design_ohm)} Ω` : ''}: ${fmt(faultCurrentA)} A (no measured Zs); ${required}`;
   } else {
     caption = `no measured or design Zs: no fault point; ${required}`;
+  }
+  const largest = feeds?.largest;
+  if (feeds && largest) {
+    const downstream = { device: { code: largest.code, rating_a: largest.rating_a }, label: `${feeds.board}/${largest.ref} ${largest.code} ${fmt(largest.rating_a)} A`, uptoA: feeds.fault_current_a };
+    caption += `; hatched: ${downstream.label}, the largest device on ${feeds.board}, for selectivity${feeds.fault_current_a === null ? '' : ` up to ${fmt(feeds.fault_current_a)} A`}`;
+    return { request: { device, faultCurrentA, requiredS, title, downstream }, caption };
   }
   return { request: { device, faultCurrentA, requiredS, title }, caption };
 }

@@ -1,8 +1,10 @@
 // A theme: a firm's folder laid out like templates/ (pack.hbs, partials/*.hbs, pack.css,
 // theme.css, print-header.hbs, print-footer.hbs, logo.svg|png|jpg). Any file it holds replaces the
 // built-in file of the same name; every other file falls back to the built-in templates.
+// Reads stay inside the theme folder: a file that links outside it is refused (load/confine.ts).
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
+import { confinedFile } from '../load/confine.js';
 import { fileURLToPath } from 'node:url';
 
 export const BUILTIN_TEMPLATES = fileURLToPath(new URL('../../templates/', import.meta.url));
@@ -22,7 +24,16 @@ export interface TemplateFiles {
   logo(): { src: string; file: string } | null;
 }
 
-const isFile = (p: string): boolean => existsSync(p) && statSync(p).isFile();
+/** The real path of `name` in a template folder, null when it has none; throws when it links outside. */
+function fileIn(dir: string, name: string): string | null {
+  const f = confinedFile(dir, name, 'the theme folder');
+  if (f.kind === 'missing') return null;
+  if (f.kind === 'refused') {
+    if (f.message.startsWith('a folder')) return null;
+    throw new Error(`theme file ${join(dir, name)}: ${f.message}`);
+  }
+  return f.path;
+}
 
 export function templateFiles(theme: string | null = null): TemplateFiles {
   const themeDir = theme === null ? null : resolve(theme);
@@ -32,8 +43,8 @@ export function templateFiles(theme: string | null = null): TemplateFiles {
   const layers = themeDir === null ? [BUILTIN_TEMPLATES] : [themeDir, BUILTIN_TEMPLATES];
   const find = (name: string): string | null => {
     for (const dir of layers) {
-      const p = join(dir, name);
-      if (isFile(p)) return p;
+      const p = fileIn(dir, name);
+      if (p !== null) return p;
     }
     return null;
   };
@@ -50,16 +61,19 @@ export function templateFiles(theme: string | null = null): TemplateFiles {
       for (const dir of [...layers].reverse()) {
         const d = join(dir, 'partials');
         if (!existsSync(d)) continue;
-        for (const f of readdirSync(d).filter((n) => n.endsWith('.hbs')).sort()) found.set(basename(f, '.hbs'), join(d, f));
+        for (const f of readdirSync(d).filter((n) => n.endsWith('.hbs')).sort()) {
+          const p = fileIn(dir, `partials/${f}`);
+          if (p !== null) found.set(basename(f, '.hbs'), p);
+        }
       }
       return found;
     },
     logo() {
       // The first layer holding any logo file wins: a theme's logo.png replaces the built-in logo.svg.
       for (const dir of layers) {
-        const name = LOGO_NAMES.find((n) => isFile(join(dir, n)));
+        const name = LOGO_NAMES.find((n) => fileIn(dir, n) !== null);
         if (name) {
-          const file = join(dir, name);
+          const file = fileIn(dir, name)!;
           return { src: `data:${LOGO_TYPES[extname(name)]};base64,${readFileSync(file).toString('base64')}`, file };
         }
       }

@@ -1,6 +1,6 @@
 // Changes since the previous revision, computed from data.json as written and read back.
 import { afterAll, describe, expect, it } from 'vitest';
-import { writeFileSync } from 'node:fs';
+import { copyFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadJob } from '../../src/job.js';
 import { dataBytes, packData, parseData, type PackData, type RevisionInfo } from '../../src/archive/data.js';
@@ -13,7 +13,7 @@ const made: string[] = [];
 /** The fixture job, optionally edited, as its data.json would read back. */
 function data(change: (dir: string) => void = () => {}, revision: RevisionInfo | null = null): PackData {
   const dir = copyFixture('archive-job');
-  made.push(join(dir, '..'));
+  made.push(join(dir, '..', '..'));
   change(dir);
   const job = loadJob(dir);
   if (!job.ok) throw new Error(job.errors.map((e) => `${e.file}:${e.row}:${e.column}: ${e.message}`).join('\n'));
@@ -28,6 +28,17 @@ const count = (c: ReturnType<typeof diff>) =>
   c.circuitsAdded.length + c.circuitsRemoved.length + c.design.length + c.readings.length + c.verdicts.length + c.job.length;
 
 afterAll(() => made.forEach(removeTree));
+
+describe('test sessions recorded after a revision but dated before it', () => {
+  it('are accepted and listed, while a later session is not', () => {
+    const late = diff(data((d) => copyFileSync(join(d, 'readings/2026-10-09.csv'), join(d, 'readings/2026-10-08-found.csv'))));
+    expect(late.lateSessions).toEqual([{ file: 'readings/2026-10-08-found.csv', date: '2026-10-08' }]);
+    const sameDay = diff(data((d) => copyFileSync(join(d, 'readings/2026-10-09.csv'), join(d, 'readings/2026-10-10.csv'))));
+    expect(sameDay.lateSessions).toEqual([{ file: 'readings/2026-10-10.csv', date: '2026-10-10' }]);
+    const later = diff(data((d) => copyFileSync(join(d, 'readings/2026-10-09.csv'), join(d, 'readings/2026-10-11.csv'))));
+    expect(later.lateSessions).toEqual([]);
+  });
+});
 
 describe('changes since the previous revision', () => {
   it('finds nothing when nothing changed, and names the revision compared with', () => {

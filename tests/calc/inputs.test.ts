@@ -8,7 +8,7 @@ describe('inputs outside the published tables', () => {
   it('are input errors located in circuits.csv, one per circuit, never guessed', () => {
     expect(job.ok).toBe(false);
     expect(lines).toEqual([
-      expect.stringMatching(/^circuits\.csv:2:8: live_mm2: found 1 mm²; the capacity tables held cover 1\.5, /),
+      expect.stringMatching(/^circuits\.csv:2:8: live_mm2: found 0.75 mm²; the capacity tables held cover 1, 1\.5, /),
       expect.stringMatching(/^circuits\.csv:3:11: method: no capacity table for method F/),
       expect.stringMatching(/^circuits\.csv:4:12: conductor: .*copper only/),
       expect.stringMatching(/^circuits\.csv:5:13: grouped: found 30 circuits; .*up to 20/),

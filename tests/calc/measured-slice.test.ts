@@ -70,7 +70,7 @@ describe('the check registry', () => {
   it('lists every check id of CONTRACT.md once', () => {
     expect(CHECKS.map(([id]) => id)).toEqual(['overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic',
       'cpc-size', 'breaking-capacity', 'continuity', 'ring', 'insulation', 'polarity', 'zs-measured', 'rcd', 'rcd-tt',
-      'additional-protection']);
+      'additional-protection', 'selectivity']);
   });
   it('passes no measured check of a circuit that has no readings', () => {
     const ctx = context({ ring: 'yes', rcd_ma: '30' }, {}, { ze_ohm: '0.3' });

@@ -7,13 +7,16 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Page } from 'puppeteer-core';
-import { packsmith } from '../helpers/cli.js';
+import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
 import { againstStored, difference } from '../helpers/screenshot.js';
 import { defaultJobs } from '../../src/build.js';
 import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
 
 const out = mkdtempSync(join(tmpdir(), 'packsmith-site-'));
 const STORED = fileURLToPath(new URL('./screenshots/pack-job-page-1.png', import.meta.url));
+const STORED_PHONE = fileURLToPath(new URL('./screenshots/pack-job-phone.png', import.meta.url));
+/** A phone held upright: 390 CSS px wide. */
+const PHONE = { width: 390, height: 844 };
 /** Page 1 as printed on A4: the sheet less its 14 mm side margins, at 96 px per inch. */
 const A4_CONTENT = { width: Math.round(((210 - 28) / 25.4) * 96), height: Math.round(((297 - 34) / 25.4) * 96) };
 
@@ -24,7 +27,7 @@ describe('the built site in Chromium', () => {
   const jobs = [...defaultJobs(), 'tests/fixtures/pack-job'];
 
   beforeAll(async () => {
-    const r = packsmith(['build', ...jobs, '--out', out]);
+    const r = packsmith(['build', ...jobs, '--out', out, ...NO_ARCHIVE]);
     if (r.code !== 0) throw new Error(r.stderr);
     const chromium = findChromium();
     if (!chromium) throw new Error('no Chromium: run scripts/install-deps.sh (or set PACKSMITH_CHROME)');
@@ -120,5 +123,72 @@ describe('the built site in Chromium', () => {
     writeFileSync(changed, readFileSync(html, 'utf8').replace('Ampersand &amp; &lt;Sons&gt; Electrical</strong>', 'Another Firm Entirely Ltd</strong>'));
     const d = difference(await pageOne(changed), readFileSync(STORED));
     expect(d.differing).toBeGreaterThan(200);
+  });
+
+  it('reads on a phone 390 px wide: nothing cut off, wide tables scroll inside their box', async () => {
+    await page.setViewport({ ...PHONE, deviceScaleFactor: 1 });
+    await page.goto(pathToFileURL(join(out, 'tannery-row-refit/draft/pack.html')).href, { waitUntil: 'load' });
+    const layout = await page.evaluate(() => {
+      const inScroll = (el: Element) => el.closest('.scroll') !== null;
+      const sticking = [...document.body.querySelectorAll('*')]
+        .filter((el) => !inScroll(el) && !el.closest('svg'))
+        .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
+        .map((el) => `${el.tagName.toLowerCase()}.${el.className}`);
+      const tables = [...document.querySelectorAll('table')].map((t) => ({ cls: t.className, boxed: inScroll(t), fits: t.getBoundingClientRect().right <= window.innerWidth + 0.5 }));
+      const scrolls = [...document.querySelectorAll('.scroll')].map((b) => ({ overflow: getComputedStyle(b).overflowX, wider: b.scrollWidth > b.clientWidth, right: b.getBoundingClientRect().right }));
+      return { page: document.documentElement.scrollWidth, sticking, tables, scrolls };
+    });
+    expect(layout.page).toBeLessThanOrEqual(PHONE.width);
+    expect(layout.sticking).toEqual([]);
+    // every table that does not fit sits in a box that scrolls sideways, and that box fits the screen
+    for (const t of layout.tables) expect(t.fits || t.boxed, t.cls).toBe(true);
+    for (const b of layout.scrolls) {
+      expect(b.overflow).toBe('auto');
+      expect(b.right).toBeLessThanOrEqual(PHONE.width + 0.5);
+    }
+    expect(layout.scrolls.some((b) => b.wider)).toBe(true); // the results schedule is wider than a phone
+  });
+
+  it('draws the top of a pack on a phone as the stored screenshot, anti-aliasing aside', async () => {
+    await page.setViewport({ ...PHONE, deviceScaleFactor: 1 });
+    await page.goto(pathToFileURL(join(out, 'pack-job/draft/pack.html')).href, { waitUntil: 'load' });
+    const shot = Buffer.from(await page.screenshot({ clip: { x: 0, y: 0, width: PHONE.width, height: 1600 }, type: 'png' }));
+    const d = againstStored(shot, STORED_PHONE);
+    expect(d.sameSize).toBe(true);
+    expect(d.differing / d.total).toBeLessThan(0.002);
+  });
+
+  it('finds jobs on the archive index as you type, sorts them by date, and never wraps a date', async () => {
+    await page.setViewport({ width: 1200, height: 900, deviceScaleFactor: 1 });
+    await page.goto(pathToFileURL(join(out, 'index.html')).href, { waitUntil: 'load' });
+    const shown = () => page.$$eval('#jobs-body tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('td .muted')!.textContent));
+    expect(await shown()).toEqual(['marsh-street-surgery', 'pack-job', 'tannery-row-refit']);
+    const row = await page.$eval('#jobs-body tr:last-child', (r) => r.textContent);
+    expect(row).toContain('Amberlode Coffee Roasters Ltd'); // the client
+    expect(row).toContain('Unit 7, Tannery Row, Millbrook MB2 9LD'); // the site
+    expect(row).toMatch(/2 fail, 1 attention, 142 pass/); // the counts
+    await page.type('#find', 'tannery');
+    expect(await shown()).toEqual(['tannery-row-refit']);
+    await page.click('#find', { count: 3 });
+    await page.keyboard.press('Backspace');
+    await page.type('#find', 'amberlode millbrook');
+    expect(await shown()).toEqual(['tannery-row-refit']);
+    await page.type('#find', 'x');
+    expect(await shown()).toEqual([]);
+    expect(await page.$eval('#none', (p) => (p as HTMLElement).hidden)).toBe(false);
+    await page.click('#find', { count: 3 });
+    await page.keyboard.press('Backspace');
+    expect(await shown()).toHaveLength(3);
+    const dates = () => page.$$eval('#jobs-body tr', (rows) => rows.map((r) => r.getAttribute('data-date')!));
+    await page.click('#sort');
+    const newest = await dates();
+    expect(newest).toEqual([...newest].sort().reverse());
+    await page.click('#sort');
+    const oldest = await dates();
+    expect(oldest).toEqual([...oldest].sort());
+    // a date is on one line even in a narrow window
+    await page.setViewport({ ...PHONE, deviceScaleFactor: 1 });
+    const wraps = await page.$$eval('td.date', (cells) => cells.map((c) => [getComputedStyle(c).whiteSpace, c.getClientRects().length]));
+    for (const [ws] of wraps) expect(ws).toBe('nowrap');
   });
 });

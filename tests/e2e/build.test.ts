@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { packsmith } from '../helpers/cli.js';
+import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
 import { pdfInfo, pdfText } from '../helpers/pdf.js';
 import { sha } from '../helpers/archive.js';
 import { readJob } from '../../src/load/job.js';
@@ -15,7 +15,7 @@ describe('packsmith build (demo job)', () => {
   const out = mkdtempSync(join(tmpdir(), 'packsmith-e2e-'));
   let run: ReturnType<typeof packsmith>;
   beforeAll(() => {
-    run = packsmith(['build', DEMO, '--out', out]);
+    run = packsmith(['build', DEMO, '--out', out, ...NO_ARCHIVE]);
   });
 
   it('exits 0 and writes HTML, PDF and the site index', () => {
@@ -41,7 +41,7 @@ describe('packsmith build (demo job)', () => {
 
   it('gives the same SHA-256 for pack.html and pack.pdf when built again into another folder', () => {
     const again = mkdtempSync(join(tmpdir(), 'packsmith-e2e-again-'));
-    expect(packsmith(['build', DEMO, '--out', again]).code).toBe(0);
+    expect(packsmith(['build', DEMO, '--out', again, ...NO_ARCHIVE]).code).toBe(0);
     for (const f of ['pack.html', 'pack.pdf']) {
       expect(sha(join(again, 'tannery-row-refit/draft', f))).toBe(sha(join(out, 'tannery-row-refit/draft', f)));
     }
@@ -58,7 +58,7 @@ describe('packsmith build (demo job)', () => {
 
   it('writes the HTML and says how to get PDFs when no Chromium is found', () => {
     const bare = mkdtempSync(join(tmpdir(), 'packsmith-nochrome-'));
-    const r = packsmith(['build', DEMO, '--out', bare], { PACKSMITH_CHROME: '/nonexistent/chromium' });
+    const r = packsmith(['build', DEMO, '--out', bare, ...NO_ARCHIVE], { PACKSMITH_CHROME: '/nonexistent/chromium' });
     expect(r.code).toBe(0);
     expect(existsSync(join(bare, 'tannery-row-refit/draft/pack.html'))).toBe(true);
     expect(existsSync(join(bare, 'tannery-row-refit/draft/pack.pdf'))).toBe(false);

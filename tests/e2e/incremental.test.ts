@@ -66,7 +66,7 @@ describe('packsmith build, incrementally', () => {
     edit(a, 'readings/2026-10-09.csv', 'ok,0.64,', 'ok,0.66,');
     build();
     html = readFileSync(join(out, 'archive-job/draft/pack.html'), 'utf8');
-    expect(html).toMatch(/<td>DB1<\/td><td>2<\/td><td>zs_ohm<\/td><td>0\.64 Ω on 2026-10-09<\/td><td>0\.66 Ω on 2026-10-09<\/td>/);
+    expect(html).toMatch(/<td>DB1<\/td><td>2<\/td><td>Measured Zs<\/td><td>0\.64 Ω on 2026-10-09<\/td><td>0\.66 Ω on 2026-10-09<\/td>/);
   });
 });
 
@@ -74,24 +74,31 @@ describe('the archive site', () => {
   const page = (p: string) => readFileSync(join(out, p), 'utf8');
   const hrefs = (html: string) => [...html.matchAll(/href="([^"]+)"/g)].map((m) => m[1]!);
 
-  it('lists every job with its latest revision, status and issue dates', () => {
+  it('lists every job with its client, site, latest revision and date, and status counts', () => {
     const index = page('index.html');
-    const rows = index.split('<tr>').slice(2);
+    const rows = index.split('<tr data-date=').slice(1);
     expect(rows).toHaveLength(2);
-    expect(rows[0]).toMatch(/Lantern Yard workshop additions[\s\S]*Revision 1, 2026-10-12[\s\S]*all passed[\s\S]*Revision 1: 2026-10-12/);
-    expect(rows[1]).toMatch(/none issued[\s\S]*open items \(draft\)[\s\S]*1 fail/);
+    expect(rows[0]).toMatch(/^"2026-10-12"[\s\S]*Lantern Yard workshop additions[\s\S]*Revision 1<\/td>\s*<td class="date">2026-10-12<\/td>[\s\S]*all passed/);
+    expect(rows[1]).toMatch(/Draft only[\s\S]*open items \(draft\)[\s\S]*1 fail/);
   });
 
-  it('links every revision and draft by relative paths that exist, on plain pages without script', () => {
+  it('links every revision and draft by relative paths that exist; the index has one inline script that makes no request', () => {
     for (const p of ['index.html', 'archive-job/index.html', 'failing-job/index.html']) {
       const html = page(p);
-      expect(html).not.toMatch(/<script/i);
+      const scripts = [...html.matchAll(/<script([^>]*)>([\s\S]*?)<\/script>/gi)];
+      expect(scripts, p).toHaveLength(p === 'index.html' ? 1 : 0);
+      for (const [, attrs, code] of scripts) {
+        expect(attrs).toBe(''); // inline, no src
+        expect(code).not.toMatch(/fetch|XMLHttpRequest|import|https?:|WebSocket|location/);
+      }
       for (const h of hrefs(html)) {
         expect(h).not.toMatch(/^(\/|[a-z]+:)/); // relative: works from file:// and from any web server
         expect(existsSync(join(out, dirname(p), h))).toBe(true);
       }
     }
-    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/rev-1/pack.html', 'archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
-    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', 'rev-1/pack.html', 'rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
+    // the revisions stay in the archive beside projects/; the site in out/ links them there
+    expect(hrefs(page('index.html'))).toEqual(expect.arrayContaining(['archive-job/../../archive/archive-job/rev-1/pack.html', 'archive-job/../../archive/archive-job/rev-1/pack.pdf', 'failing-job/draft/pack.pdf']));
+    expect(hrefs(page('archive-job/index.html'))).toEqual(['../index.html', '../../archive/archive-job/rev-1/pack.html', '../../archive/archive-job/rev-1/pack.pdf', 'draft/pack.html', 'draft/pack.pdf']);
+    expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false);
   });
 });

@@ -1,12 +1,13 @@
 // End to end: issue revisions with the compiled CLI, change a reading, issue again, tamper, verify.
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, vi } from 'vitest';
 import { chmodSync, existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
 import { packsmith, startPacksmith } from '../helpers/cli.js';
 import { pdfInfo, pdfText } from '../helpers/pdf.js';
-import { copyFixture, edit, folderHashes, mode, removeTree, scratch, sha } from '../helpers/archive.js';
+import { archiveOf, copyFixture, edit, folderHashes, mode, removeTree, scratch, sha } from '../helpers/archive.js';
 
+vi.setConfig({ testTimeout: 240_000 }); // each case prints at least one pack
 const made: string[] = [];
 const place = (label: string) => { const d = scratch(label); made.push(d); return d; };
 afterAll(() => made.forEach(removeTree));
@@ -28,7 +29,8 @@ describe('packsmith issue: two revisions of one job', () => {
   const root = place('issue');
   const job = copyFixture('archive-job', root);
   const out = join(root, 'out');
-  const rev = (n: number) => join(out, 'archive-job', `rev-${n}`);
+  const archive = join(root, 'archive');
+  const rev = (n: number) => join(archive, 'archive-job', `rev-${n}`);
   let first: Record<string, string>;
 
   it('refuses while a check is not verified, unless open items are accepted', () => {
@@ -65,7 +67,7 @@ describe('packsmith issue: two revisions of one job', () => {
     const other = place('same');
     const copy = copyFixture('archive-job', other);
     expect(issue(copy, join(other, 'out'), '--date', '2026-10-10', '--reason', 'Handover', '--accept-open-items').code).toBe(0);
-    expect(folderHashes(join(other, 'out/archive-job/rev-1'))).toEqual(first);
+    expect(folderHashes(join(other, 'archive/archive-job/rev-1'))).toEqual(first);
   });
 
   it('prints "Revision 1" and its date on every page, with title, firm, job, dates and data.json in the PDF', async () => {
@@ -92,14 +94,15 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(r.stdout).toContain('issued Revision 2');
     const { headings, rows } = changesOf(readFileSync(join(rev(2), 'pack.html'), 'utf8'));
     expect(headings).toEqual(['Changes since Revision 1', 'Readings changed']);
-    expect(rows).toEqual(['DB1 1 zs_ohm 1.08 Ω on 2026-10-09 1.12 Ω on 2026-10-09']);
+    expect(rows).toEqual(['DB1 1 Measured Zs 1.08 Ω on 2026-10-09 1.12 Ω on 2026-10-09']);
     expect(folderHashes(rev(1))).toEqual(first);
     expect(mode(rev(1))).toBe(0o555);
     const m2 = JSON.parse(readFileSync(join(rev(2), 'manifest.json'), 'utf8')) as Record<string, any>;
     expect(m2.previous).toEqual({ revision: 1, manifest_sha256: first['manifest.json'] });
     const record = parse(readFileSync(join(job, 'revisions.yaml'), 'utf8')) as { revisions: { revision: number }[] };
     expect(record.revisions.map((e) => e.revision)).toEqual([1, 2]);
-    expect(packsmith(['verify', out]).code).toBe(0);
+    expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
+    expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false); // never under --out
   });
 
   it('refuses when nothing changed since the last revision', () => {
@@ -110,9 +113,9 @@ describe('packsmith issue: two revisions of one job', () => {
   });
 
   it('refuses to issue into an archive that lacks the revisions revisions.yaml records', () => {
-    const r = issue(job, join(root, 'elsewhere'), '--date', '2026-10-13', '--accept-open-items');
+    const r = issue(job, out, '--date', '2026-10-13', '--accept-open-items', '--archive', join(root, 'elsewhere'));
     expect(r.code).toBe(1);
-    expect(r.stderr).toMatch(/revisions\.yaml records revision 1, which .*elsewhere\/archive-job does not hold/);
+    expect(r.stderr).toMatch(/revisions\.yaml: records revision 1, which .*elsewhere\/archive-job does not hold/);
     expect(existsSync(join(root, 'elsewhere'))).toBe(false);
   });
 
@@ -130,10 +133,10 @@ describe('packsmith issue: two revisions of one job', () => {
     const at = bytes.length >> 1;
     bytes[at] = bytes[at]! ^ 0x01;
     writeFileSync(pdf, bytes);
-    const v = packsmith(['verify', out]);
+    const v = packsmith(['verify', join(root, 'projects')]);
     expect(v.code).toBe(1);
-    expect(v.stdout).toContain(`${join(out, 'archive-job/rev-1/pack.pdf')}: altered`);
-    expect(v.stdout).not.toMatch(/rev-2/);
+    expect(v.stdout).toContain(`${join(archive, 'archive-job/rev-1/pack.pdf')}: altered`);
+    expect(v.stdout.split('\n').filter((l) => l.startsWith(archive)).join('\n')).not.toMatch(/rev-2/); // findings name rev-1 only
     const r = issue(job, out, '--date', '2026-10-14', '--accept-open-items');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/does not check out/);
@@ -152,12 +155,12 @@ describe('packsmith issue: refusals and open items', () => {
     expect(refused.stderr.split('\n')[1]).toMatch(/DB1 circuit 2 polarity: fail/);
     const r = issue(job, out, '--date', '2026-10-10', '--accept-open-items');
     expect(r.code).toBe(0);
-    const html = readFileSync(join(out, 'failing-job/rev-1/pack.html'), 'utf8');
+    const html = readFileSync(join(archiveOf(job), 'failing-job/rev-1/pack.html'), 'utf8');
     const openAt = html.indexOf('<h3>Open items</h3>');
     expect(openAt).toBeGreaterThan(0);
     expect(openAt).toBeLessThan(html.indexOf('<section class="board"'));
     const firstRow = /<table class="open">\s*<thead>[\s\S]*?<\/thead>\s*<tbody>\s*<tr>([\s\S]*?)<\/tr>/.exec(html)![1]!;
-    expect(firstRow).toMatch(/polarity.*fail/);
+    expect(firstRow).toMatch(/Polarity.*fail/);
     // the cover says the revision was issued with open items accepted
     expect(html.slice(0, html.indexOf('id="summary"'))).toMatch(/Issued with open items accepted/);
   });
@@ -173,6 +176,7 @@ describe('packsmith issue: refusals and open items', () => {
     expect(issue(job, out, '--date', '2026-02-30').stderr).toMatch(/found issue date "2026-02-30"; expected a date as YYYY-MM-DD/);
     expect(packsmith(['issue', job, '--out', out, '--accept-open-items']).code).toBe(2);
     expect(existsSync(out)).toBe(false);
+    expect(existsSync(archiveOf(job))).toBe(false);
     expect(readdirSync(job).sort()).toEqual(['circuits.csv', 'project.yaml', 'readings']);
   });
 });
@@ -184,7 +188,8 @@ describe('packsmith issue: concurrent runs', () => {
     const a = copyFixture('archive-job', join(root, 'a'));
     const b = copyFixture('archive-job', join(root, 'b'));
     edit(b, 'readings/2026-10-09.csv', 'ok,0.58,', 'ok,0.61,');
-    const args = (job: string) => ['issue', job, '--by', 'T. Marwood', '--date', '2026-10-10', '--accept-open-items', '--out', out];
+    const archive = join(root, 'archive');
+    const args = (job: string) => ['issue', job, '--by', 'T. Marwood', '--date', '2026-10-10', '--accept-open-items', '--out', out, '--archive', archive];
     const env = { PACKSMITH_STOP_AT: 'committing' };
     const runs = [startPacksmith(args(a), env), startPacksmith(args(b), env)];
     await Promise.all(runs.map((r) => r.said('stopped at committing'))); // both hold a finished rev-1, not yet in place
@@ -194,9 +199,10 @@ describe('packsmith issue: concurrent runs', () => {
     expect(ends.map((e) => e.code)).toEqual([0, 0]);
     const numbers = ends.map((e) => Number(/issued Revision (\d+)/.exec(e.stdout)![1])).sort();
     expect(numbers).toEqual([1, 2]);
-    expect(packsmith(['verify', out]).code).toBe(0);
-    const m2 = JSON.parse(readFileSync(join(out, 'archive-job/rev-2/manifest.json'), 'utf8')) as Record<string, any>;
+    // each job folder records the revision it issued, so the archive is checked against each alone
+    expect(packsmith(['verify', archive]).code).toBe(0);
+    const m2 = JSON.parse(readFileSync(join(archive, 'archive-job/rev-2/manifest.json'), 'utf8')) as Record<string, any>;
     expect(m2.previous.revision).toBe(1);
-    expect(changesOf(readFileSync(join(out, 'archive-job/rev-2/pack.html'), 'utf8')).headings).toEqual(['Changes since Revision 1', 'Readings changed']);
+    expect(changesOf(readFileSync(join(archive, 'archive-job/rev-2/pack.html'), 'utf8')).headings).toEqual(['Changes since Revision 1', 'Readings changed']);
   });
 });

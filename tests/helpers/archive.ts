@@ -8,9 +8,12 @@ import { ROOT } from './cli.js';
 
 export const scratch = (label: string): string => mkdtempSync(join(tmpdir(), `packsmith-${label}-`));
 
-/** Copy tests/fixtures/<name> to `parent`/<name> (a fresh scratch folder by default); returns the copy. */
+/**
+ * Copy tests/fixtures/<name> to `parent`/projects/<name> (a fresh scratch folder by default), laid
+ * out as a firm keeps its jobs: its issued revisions then go to `parent`/archive/. Returns the copy.
+ */
 export function copyFixture(name: string, parent = scratch(name)): string {
-  const dest = join(parent, name);
+  const dest = join(parent, 'projects', name);
   cpSync(join(ROOT, 'tests/fixtures', name), dest, { recursive: true });
   return dest;
 }
@@ -47,3 +50,6 @@ export function removeTree(dir: string): void {
   }
   rmSync(dir, { recursive: true, force: true });
 }
+
+/** The archive folder of a job copied by copyFixture: archive/ beside its projects/ folder. */
+export const archiveOf = (jobDir: string): string => join(jobDir, '..', '..', 'archive');

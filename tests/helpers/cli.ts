@@ -56,3 +56,9 @@ export function startPacksmith(args: string[], env: NodeJS.ProcessEnv = {}): Run
     }),
   };
 }
+
+/**
+ * `--archive` for builds of the demo jobs: a folder that is never there, so a draft never depends
+ * on whether `npm run setup` issued the demo's revisions into archive/.
+ */
+export const NO_ARCHIVE = ['--archive', fileURLToPath(new URL('../fixtures/no-archive', import.meta.url))];

@@ -49,6 +49,16 @@ describe('validating a job folder', () => {
     expect(missing[0]).toMatchObject({ file: 'circuits.csv', row: 1 });
   });
 
+  it('refuses a test session dated after today (the caller reads the clock), and accepts one dated today', () => {
+    const job = readJob(fixture('archive-job')); // its one session: readings/2026-10-09.csv
+    const future = validate(job, [], [], { today: '2026-10-08' });
+    expect(future.ok ? [] : future.errors).toEqual([
+      { file: 'readings/2026-10-09.csv', row: 1, column: 1, message: 'test session dated 2026-10-09, after today (2026-10-08); a readings file is named after the day its tests were done' },
+    ]);
+    expect(validate(job, [], [], { today: '2026-10-09' }).ok).toBe(true);
+    expect(validate(job).ok).toBe(true); // no date given: nothing to compare with
+  });
+
   it('reports a missing project.yaml instead of failing', () => {
     const w = validate(readJob(fixture('does-not-exist')));
     expect(w.ok).toBe(false);

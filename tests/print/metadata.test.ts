@@ -3,7 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { PDFDocument } from 'pdf-lib';
 import { pdfInfo } from '../helpers/pdf.js';
-import { dayOf, setPdfMetadata, type PdfMetadata } from '../../src/print/metadata.js';
+import { setPdfMetadata, type PdfMetadata } from '../../src/print/metadata.js';
+import { dayOf } from '../../src/model/dates.js';
 
 async function printedAt(when: Date): Promise<Uint8Array> {
   const doc = await PDFDocument.create({ updateMetadata: false });

@@ -30,3 +30,31 @@ describe('printing a pack', () => {
     expect(refused).toEqual(expect.arrayContaining(['http://127.0.0.1:9/x.css', 'https://example.invalid/logo.png']));
   });
 });
+
+describe('a pack that tries to leave its page', () => {
+  let browser: PrintBrowser;
+  beforeAll(async () => {
+    if (!chromium) throw new Error('no Chromium: run scripts/install-deps.sh (or set PACKSMITH_CHROME)');
+    browser = await launchBrowser(chromium);
+  });
+  afterAll(async () => { await browser?.close(); });
+
+  const leave = (to: string) => {
+    const dir = mkdtempSync(join(tmpdir(), 'packsmith-nav-'));
+    const html = join(dir, 'pack.html');
+    writeFileSync(html, `<!doctype html><html><head><meta http-equiv="refresh" content="0;url=${to}"></head><body><p>the pack</p></body></html>`);
+    return printPdf(browser.browser, html, { header: '<span></span>', footer: '<span></span>' });
+  };
+  it.each(['https://example.invalid/', 'file:///etc/hostname'])('is refused, not printed (meta refresh to %s)', async (to) => {
+    await expect(leave(to)).rejects.toThrow(/tries to open|left its page/);
+  });
+  it('never prints another page in its place (meta refresh to a data: URL)', async () => {
+    const r = await leave('data:text/html,<p>elsewhere</p>').catch((e: unknown) => e);
+    if (r instanceof Error) expect(r.message).toMatch(/tries to open|left its page/);
+    else {
+      const { text } = await pdfText((r as { pdf: Uint8Array }).pdf);
+      expect(text.join(' ')).toContain('the pack');
+      expect(text.join(' ')).not.toContain('elsewhere');
+    }
+  });
+});

@@ -71,8 +71,8 @@ describe('corrections applied as products (IEC 60364-5-52 Annex B)', () => {
 
 describe('out-of-table inputs are problems, never guesses', () => {
   it.each([
-    [{ live_mm2: 1.0 }, 'live_mm2'],
-    [{ live_mm2: 50 }, 'live_mm2'],
+    [{ live_mm2: 0.75 }, 'live_mm2'],
+    [{ live_mm2: 300 }, 'live_mm2'],
     [{ method: 'F' as const }, 'method'],
     [{ material: 'al' as const, live_mm2: 16 }, 'conductor'],
     [{ ambient_c: 65 }, 'ambient_c'],
@@ -91,5 +91,43 @@ describe('properties', () => {
   });
   it('a hotter room never raises Iz', () => {
     fc.assert(fc.property(fc.integer({ min: 10, max: 59 }), (t) => iz({ ambient_c: t + 1 }).iz_a <= iz({ ambient_c: t }).iz_a));
+  });
+});
+
+// Sizes beyond 1.5–35 mm²: 1 mm² (common for lighting) and 50–240 mm² (sub-mains).
+describe('current-carrying capacity beyond 1.5–35 mm²', () => {
+  const large = [50, 70, 95, 120, 150, 185, 240];
+  const CASES: [string, CapacityInput['insulation'], 2 | 3, CapacityInput['method'], number, number[]][] = [
+    // [1 mm², 50…240 mm²]: 1 mm² from ABNT NBR 5410:2004 Table 36/37/38/39 (public reproductions);
+    // 50–240 mm² from IEC 60364-5-52:2009 Table named, as publicly reproduced (two reproductions agree)
+    ['B.52.2', 'pvc70', 2, 'C', 15, [168, 213, 258, 299, 344, 392, 461]],
+    ['B.52.2', 'pvc70', 2, 'B1', 14, [151, 192, 232, 269, 300, 341, 400]],
+    ['B.52.4', 'pvc70', 3, 'A1', 10, [108, 136, 164, 188, 216, 245, 286]],
+    ['B.52.4', 'pvc70', 3, 'B2', 12, [118, 149, 179, 206, 225, 255, 297]],
+    ['B.52.3', 'xlpe90', 2, 'C', 19, [209, 269, 328, 382, 441, 506, 599]],
+    ['B.52.5', 'xlpe90', 3, 'B1', 16, [175, 222, 269, 312, 342, 384, 450]],
+    // method D: the single buried method of NBR 5410:2004 Table 36 (IEC 60364-5-52:2001)
+    ['B.52.2', 'pvc70', 2, 'D', 18, [148, 183, 216, 246, 278, 312, 361]],
+  ];
+  for (const [table, insulation, loaded, method, one, values] of CASES) {
+    it(`Table ${table} ${insulation} ${loaded} loaded, method ${method}: 1 mm² and 50–240 mm²`, () => {
+      expect(iz({ insulation, loaded, method, live_mm2: 1 }).it_a).toBe(one);
+      expect(large.map((live_mm2) => iz({ insulation, loaded, method, live_mm2 }).it_a)).toEqual(values);
+    });
+  }
+  it('capacity grows with size in every column held (a typo in the data would break it)', () => {
+    for (const insulation of ['pvc70', 'xlpe90'] as const) {
+      for (const loaded of [2, 3] as const) {
+        for (const method of ['A1', 'A2', 'B1', 'B2', 'C', 'D', 'E'] as const) {
+          const all = [1, 1.5, 2.5, 4, 6, 10, 16, 25, 35, ...large].map((live_mm2) => iz({ insulation, loaded, method, live_mm2 }).it_a);
+          for (let i = 1; i < all.length; i++) expect(all[i]!, `${insulation} ${loaded} ${method} #${i}`).toBeGreaterThan(all[i - 1]!);
+        }
+      }
+    }
+  });
+  it('a size still not held is an input problem that names the sizes held', () => {
+    const r = capacity({ ...base, live_mm2: 300 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(/found 300 mm²; the capacity tables held cover 1, 1\.5, .* 240 mm²/);
   });
 });

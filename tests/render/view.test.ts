@@ -3,6 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { loadJob } from '../../src/job.js';
 import { buildView, DERIVED_FIELDS, worstStatus } from '../../src/render/view.js';
+import { RESULT_COLUMNS } from '../../src/render/sections/schedules.js';
 import { renderPack, renderPackFiles } from '../../src/render/pack.js';
 import { createEngine } from '../../src/render/engine.js';
 import { snippetRequest } from '../../src/render/snippets.js';
@@ -18,18 +19,21 @@ const FIXTURE = 'tests/fixtures/pack-job';
 const DEMO = 'projects/tannery-row-refit';
 
 describe('the pack view', () => {
-  it('lists the sections in the agreed order', () => {
+  it('lists the sections in the agreed order, the checks in an appendix after the sign-off', () => {
     const { project, assessment } = job(DEMO);
     const html = renderPack(project, assessment, OPTS);
-    const ids = ['cover', 'summary', 'supply', 'board-DB1', 'board-DB2', 'notes', 'rules', 'changes', 'safety', 'signoff'];
+    const ids = ['cover', 'summary', 'supply', 'board-DB1', 'board-DB2', 'notes', 'rules', 'changes', 'safety', 'signoff', 'appendix'];
     const at = ids.map((id) => html.indexOf(`id="${id}"`));
     expect(at.every((i) => i > 0)).toBe(true);
     expect([...at].sort((a, b) => a - b)).toEqual(at);
-    // per board: schedule, then measured results, then each circuit's checks and curve
+    // per board: the design schedule, then the test results, one row per circuit each
     const db1 = html.slice(at[3], at[4]);
-    expect(db1.indexOf('Circuit schedule')).toBeLessThan(db1.indexOf('Measured results'));
-    expect(db1.indexOf('Measured results')).toBeLessThan(db1.indexOf('Checks and curves'));
-    expect(db1.match(/<figure class="snippet">/g)).toHaveLength(11);
+    expect(db1.indexOf('Circuit schedule')).toBeLessThan(db1.indexOf('Test results'));
+    expect(db1.match(/<table class="schedule">[\s\S]*?<\/table>/)![0].match(/<tr>/g)).toHaveLength(11 + 1);
+    expect(db1.match(/<table class="results">[\s\S]*?<\/table>/)![0].match(/<tr>/g)).toHaveLength(11 + 2);
+    // the curves and the checks' working live in the appendix only
+    expect(db1).not.toContain('<figure class="snippet">');
+    expect(html.slice(at[10]).match(/<figure class="snippet">/g)).toHaveLength(14);
   });
 
   it('shows the derived values calc gives, and — where it gives none', () => {
@@ -53,16 +57,26 @@ describe('the pack view', () => {
     expect(cells[14]).toBe('—');
   });
 
-  it('gives every reading its verdict, date, tester and earlier values', () => {
+  it('gives every reading a cell with the verdict of its check, and a re-tested reading a mark and a footnote', () => {
     const { project, assessment } = job(DEMO);
     const view = buildView(project, assessment, OPTS);
-    const c10 = view.boards[0]!.circuits.find((c) => c.ref === '10')!;
-    const zs = c10.readings.find((r) => r.label === 'Zs')!;
+    const db1 = view.boards[0]!;
+    const c10 = db1.results.find((c) => c.ref === '10')!;
+    const cell = (field: string) => c10.cells[RESULT_COLUMNS.findIndex((c) => c.field === field)]!;
     const zsCheck = assessment.circuits.find((c) => c.board === 'DB1' && c.ref === '10')!.checks.find((k) => k.id === 'zs-measured')!;
-    expect(zs).toMatchObject({ shown: '1.39 Ω', date: '2026-11-20', by: 'R. Okafor', check: 'zs-measured', earlier: '9.8 Ω on 2026-11-13' });
-    expect(zs.look!.status).toBe(zsCheck.status);
-    // every recorded value of the circuit appears, none invented
-    expect(c10.readings.map((r) => r.label)).toEqual(['R1+R2', 'insulation L–L', 'insulation L–E', 'insulation test voltage', 'polarity', 'Zs']);
+    expect(cell('zs_ohm')).toMatchObject({ shown: '1.39', mark: 1 });
+    expect(cell('zs_ohm').look!.status).toBe(zsCheck.status);
+    expect(c10).toMatchObject({ tested: '2026-11-20', by: 'R. Okafor' });
+    // every recorded value of the circuit appears, none invented: no RCD, no ring readings
+    expect(c10.cells.filter((c) => c.shown !== '').map((c) => c.shown)).toEqual(['1.07', '>999', '>999', '500', 'ok', '1.39']);
+    expect(cell('rcd_1x_ms')).toMatchObject({ shown: '', look: null });
+    expect(db1.footnotes).toEqual([{ mark: 1, text: expect.stringMatching(/^DB1 10, re-tested: .* on 2026-11-13: R1\+R2 9\.45 Ω, .*measured Zs 9\.8 Ω\.$/) }]);
+    // a needed reading that is missing shows a dash with the check's verdict
+    const fixture = job(FIXTURE);
+    const fv = buildView(fixture.project, fixture.assessment, OPTS);
+    const c2 = fv.boards[0]!.results.find((c) => c.ref === '2')!;
+    expect(c2.cells[RESULT_COLUMNS.findIndex((c) => c.field === 'rcd_1x_ms')]).toMatchObject({ look: { status: 'not-verified' } });
+    expect(c2.look.status).toBe('not-verified');
   });
 
   it('lists open items first in the summary, worst first, each with its circuit and reason', () => {
@@ -100,7 +114,7 @@ describe('the pack view', () => {
     const fixture = job(FIXTURE);
     const fv = buildView(fixture.project, fixture.assessment, OPTS);
     expect(fv.rules.params.find((p) => p.label === 'Voltage factor Cmin')).toMatchObject({ value: 0.95, overridden: true });
-    expect(fv.rules.circuitOverrides).toEqual(['DB-A 3: required disconnection time 5 s set in circuits.csv']);
+    expect(fv.rules.circuitOverrides).toEqual(['DB-A 3: required disconnection time 5 s, set for this circuit']);
   });
 
   it('shows RA on a TT supply, "not recorded" for a missing value, and the sign-off people given', () => {
@@ -110,16 +124,38 @@ describe('the pack view', () => {
     const fixture = job(FIXTURE);
     const fhtml = renderPack(fixture.project, fixture.assessment, OPTS);
     expect(fhtml).not.toContain('RA (earth electrode)');
-    const signoff = fhtml.slice(fhtml.indexOf('id="signoff"'));
-    expect(signoff).toMatch(/<td>Designer<\/td><td>A. Designer &lt;x&gt;<\/td><td><\/td><td>2026-02-20<\/td>/);
-    expect(signoff).toMatch(/<td>Inspector<\/td><td><\/td><td><\/td><td><\/td>/);
+    const signoff = fhtml.slice(fhtml.indexOf('id="signoff"'), fhtml.indexOf('id="appendix"'));
+    const signer = (role: string) => signoff.slice(signoff.indexOf(`<h3>${role}</h3>`), signoff.indexOf('</div>\n  </div>', signoff.indexOf(`<h3>${role}</h3>`)));
+    expect(signer('Designer')).toMatch(/<span class="line">A. Designer &lt;x&gt;<\/span><span class="what">Name<\/span>/);
+    expect(signer('Designer')).toMatch(/<span class="line">2026-02-20<\/span><span class="what">Date<\/span>/);
+    // a person not named: a blank line to write on, and a line to sign for everyone
+    expect(signer('Inspector')).toMatch(/<span class="line"><\/span><span class="what">Name<\/span>/);
+    for (const role of ['Designer', 'Installer', 'Inspector']) {
+      expect(signer(role)).toMatch(/<p class="declaration">I [a-z]+ /);
+      expect(signer(role)).toMatch(/<span class="line"><\/span><span class="what">Signature<\/span>/);
+    }
+    expect(signoff).toMatch(/This is a draft: it has not been issued/);
+  });
+
+  it('prints in the sign-off who issued the revision and why, and the signing key where there is one', () => {
+    const { project, assessment } = job(FIXTURE);
+    const issued = { by: 'R. Okafor <r>', date: '2026-03-09', reason: 'handover to client' };
+    const changes = { since: null, issued, circuitsAdded: [], circuitsRemoved: [], design: [], readings: [], verdicts: [], job: [], lateSessions: [] };
+    const html = renderPack(project, assessment, { revisionLabel: 'Revision 1', draft: false, date: '2026-03-09', changes, signingKeyFingerprint: 'SHA256:abc123' });
+    const signoff = html.slice(html.indexOf('id="signoff"'), html.indexOf('id="appendix"'));
+    expect(signoff).toContain('This revision was issued by <strong>R. Okafor &lt;r&gt;</strong> on 2026-03-09. Reason: handover to client.');
+    expect(signoff).toContain('<code>SHA256:abc123</code>');
+    const unsigned = renderPack(project, assessment, { revisionLabel: 'Revision 1', draft: false, date: '2026-03-09', changes: { ...changes, issued: { ...issued, reason: null } } });
+    expect(unsigned).toContain('Reason: none given.');
+    expect(unsigned).not.toContain('fingerprint');
   });
 
   it('names in the safety notes the circuits whose device would open too slowly, and those not verified', () => {
     const { project, assessment } = job(FIXTURE);
     const view = buildView(project, assessment, OPTS);
     expect(view.safety.slow.map((c) => c.ref)).toEqual(['1']);
-    expect(view.safety.unverified.map((c) => c.ref)).toEqual(['2']); // circuit 2's RCD trip time was not tested
+    // circuit 2's RCD trip time was not tested; no circuit records its device's breaking capacity
+    expect(view.safety.unverified.map((c) => c.ref)).toEqual(['1', '2', '3']);
     const html = renderPack(project, assessment, OPTS);
     const safety = html.slice(html.indexOf('id="safety"'), html.indexOf('id="signoff"'));
     expect(safety).toMatch(/Isolate the supply and prove it dead/);
@@ -136,7 +172,7 @@ describe('the pack view', () => {
     expect(html).toMatch(/Changes since the previous revision<\/h2>\s*<p>No earlier revision.<\/p>/);
     expect(html.match(/<svg [^>]*class="ps-curve"/g)).toHaveLength(3);
     expect(html).not.toContain('curve not available');
-    view.boards[0]!.circuits[0]!.snippetSvg = null as unknown as string;
+    view.appendix[0]!.circuits[0]!.snippetSvg = null as unknown as string;
     expect(engine.render('pack.hbs', view).match(/curve not available/g)).toHaveLength(1);
   });
 

@@ -49,7 +49,8 @@ export const continuity: Check = (ctx) => {
 
   // The cable: the expected value with the tolerance.
   const bound = expected * (1 + rules.r1r2_tolerance_percent / 100) + rules.r1r2_tolerance_ohm;
-  const tolerance = `expected ${fmt(expected)} Ω at 20 °C + ${rules.r1r2_tolerance_percent} % + ${rules.r1r2_tolerance_ohm} Ω = ${fmt(bound)} Ω (common practice)`;
+  // the limit the reading is compared with comes first, so the inequality reads true as written
+  const tolerance = `${fmt(bound)} Ω (expected ${fmt(expected)} Ω at 20 °C + ${rules.r1r2_tolerance_percent} % + ${rules.r1r2_tolerance_ohm} Ω; common practice)`;
   const loop = `${zeWords} + ${hot} = ${fmt(ze + r.value * ratio)} Ω ≤ ${fmt(fp.limit_ohm)} Ω (${fp.by === 'rcd' ? 'IEC 60364-4-41, 411.5.3' : 'max Zs for the required time'})`;
   const numbers = { ...reading, limit: round(bound) };
   if (r.value > bound || (r.kind === 'at-least' && r.value >= bound)) {

@@ -12,6 +12,7 @@ import { polarity } from './polarity.js';
 import { rcd } from './rcd.js';
 import { rcdTt } from './rcd-tt.js';
 import { ring } from './ring.js';
+import { selectivity } from './selectivity.js';
 import { voltageDropCheck } from './voltage-drop.js';
 import { zsDesign } from './zs-design.js';
 import { zsMeasured } from './zs-measured.js';
@@ -32,4 +33,5 @@ export const CHECKS: readonly (readonly [CheckId, Check])[] = [
   ['rcd', rcd],
   ['rcd-tt', rcdTt],
   ['additional-protection', additionalProtection],
+  ['selectivity', selectivity],
 ];

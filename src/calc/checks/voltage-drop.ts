@@ -1,12 +1,18 @@
-// Voltage drop against the rule set's limit (lighting 3 %, other uses 5 %; IEC 60364-5-52 Annex G).
+// Voltage drop from the origin of the installation against the rule set's limit (lighting 3 %,
+// other uses 5 %; IEC 60364-5-52 Annex G, Table G.52.1, limits measured from the origin): the
+// circuit's own drop plus that of every feeding circuit between the origin and its board.
 import type { Check } from '../types.js';
 import { notVerified, result } from './result.js';
+import { originWords } from '../tree/origin.js';
 
-export const voltageDropCheck: Check = ({ design }) => {
+export const voltageDropCheck: Check = ({ design, vdOrigin }) => {
   const id = 'voltage-drop';
   if (!design.vd) return notVerified(id, 'no conductor resistance for this size and material in IEC 60228');
-  const { percent, basis } = design.vd;
+  const own = design.vd;
+  const origin = vdOrigin === undefined ? { percent: own.percent, legs: [] } : vdOrigin;
+  if (origin === null) return notVerified(id, `${own.basis}; the drop of a feeding circuit between the origin and this board is not known`);
   const limit = design.vdLimit.percent;
-  const ok = percent <= limit;
-  return result(id, ok ? 'pass' : 'fail', `${basis} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: Number(percent.toFixed(2)), limit, unit: '%' });
+  const ok = origin.percent <= limit;
+  const words = origin.legs.length === 0 ? own.basis : `${own.basis}; ${originWords(origin, own.percent)}`;
+  return result(id, ok ? 'pass' : 'fail', `${words} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: Number(origin.percent.toFixed(2)), limit, unit: '%' });
 };

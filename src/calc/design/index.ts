@@ -20,11 +20,12 @@ export interface Design {
   vdLimit: { percent: number; basis: string };
 }
 
-export function design(circuit: Circuit, board: Board, supply: Supply, rules: Rules): Design {
+/** `given`: the loop impedance up to the board as the tree of boards found it (else the board's Zdb or Ze). */
+export function design(circuit: Circuit, board: Board, supply: Supply, rules: Rules, given?: SourceImpedance | null): Design {
   const theta = operatingTemp(circuit.insulation);
   const hot = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, theta);
   const cold = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, 20);
-  const source = sourceImpedance(board.zdb_ohm, supply.ze_ohm, board.id);
+  const source = given !== undefined ? given : sourceImpedance(board.zdb_ohm, supply.ze_ohm, board.id);
   const zs = hot && source ? { ohm: source.ohm + hot.ohm, basis: `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω` } : null;
   const lighting = circuit.kind === 'lighting';
   const limit = lighting ? rules.vd_lighting_percent : rules.vd_other_percent;

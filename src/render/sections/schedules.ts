@@ -1,0 +1,138 @@
+// The board schedules: per board one row per circuit for the design (derived values) and one row
+// per circuit for the test results, each cell a reading with the verdict of the check that judges
+// it; re-tested cells carry a mark whose footnote gives the earlier values.
+import type { CircuitRecord, Project } from '../../model/validate.js';
+import type { Assessment, CircuitAssessment, CheckResult } from '../../calc/types.js';
+import { treeView } from './tree.js';
+import { circuitKey, type CircuitReadings, type Measured } from '../../model/readings.js';
+import type { MeasuredField } from '../../model/schema.js';
+import { fmt } from '../../model/units.js';
+import { TEST_CHECKS, READING_LABELS, lower } from '../labels.js';
+import { look, worstStatus, type Look } from '../status.js';
+import { bareReading, showReading } from '../values.js';
+
+/** The values calc derives for each circuit (CONTRACT.md), in the schedule's order. */
+export const DERIVED_FIELDS = [
+  'iz_a', 'max_zs_ohm', 'zs_design_ohm', 'fault_current_a', 'disconnect_s', 'required_disconnect_s',
+  'vd_percent', 'cpc_min_mm2', 'r1r2_expected_ohm', 'zdb_ohm', 'vd_origin_percent', 'max_length_m',
+] as const;
+
+type ResultField = MeasuredField | 'polarity' | 'rcd_button';
+
+/** The columns of the results schedule, in order, and the checks that judge each. */
+export const RESULT_COLUMNS: { field: ResultField; head: string; checks: string[] }[] = [
+  { field: 'r1r2_ohm', head: 'R1+R2', checks: ['continuity', 'ring'] },
+  { field: 'ring_r1_ohm', head: 'r1', checks: ['ring'] },
+  { field: 'ring_rn_ohm', head: 'rn', checks: ['ring'] },
+  { field: 'ring_r2_ohm', head: 'r2', checks: ['ring'] },
+  { field: 'ir_ll_mohm', head: 'L–L', checks: ['insulation'] },
+  { field: 'ir_le_mohm', head: 'L–E', checks: ['insulation'] },
+  { field: 'ir_test_v', head: 'test V', checks: ['insulation'] },
+  { field: 'polarity', head: 'Polarity', checks: ['polarity'] },
+  { field: 'zs_ohm', head: 'Zs', checks: ['zs-measured', 'rcd-tt'] },
+  { field: 'rcd_1x_ms', head: 'IΔn', checks: ['rcd'] },
+  { field: 'rcd_5x_ms', head: '5 IΔn', checks: ['rcd'] },
+  { field: 'rcd_button', head: 'Button', checks: ['rcd'] },
+];
+
+/** An id usable in a URL fragment and as a PDF destination. */
+export const anchor = (...parts: string[]): string => parts.map((p) => p.replace(/[^A-Za-z0-9_-]+/g, '-')).join('-');
+
+export const circuitAnchor = (c: { board: string; ref: string }): string => anchor('circuit', c.board, c.ref);
+
+/** Who tested on a date: the tester of the session of that date, if written. */
+function testerOn(readings: CircuitReadings, date: string): string | null {
+  const t = readings.tested_by;
+  if (!t) return null;
+  if (t.date === date) return t.value;
+  return t.earlier.find((e) => e.date === date)?.value ?? null;
+}
+
+const measuredOf = (readings: CircuitReadings, field: ResultField) => readings[field] as Measured<unknown> | undefined;
+const showAny = (field: ResultField, v: unknown): string =>
+  field === 'polarity' || field === 'rcd_button' ? String(v) : showReading(field, v as Parameters<typeof showReading>[1]);
+
+export interface Footnote { mark: number; text: string }
+
+function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitReadings, notes: Footnote[]) {
+  const checks = new Map<string, CheckResult>(a.checks.map((k) => [k.id, k]));
+  let mark: number | null = null;
+  const earlier = new Map<string, string[]>();
+  const dates: string[] = [];
+  const cells = RESULT_COLUMNS.map(({ field, checks: judges }) => {
+    const judged = judges.map((id) => checks.get(id)).filter((k): k is CheckResult => k !== undefined);
+    const status = judged.length ? worstStatus(judged.map((k) => k.status)) : null;
+    const m = measuredOf(readings, field);
+    if (!m) {
+      // nothing recorded: blank where no check needs it, a dash with the verdict where one does
+      const needed = status !== null && status !== 'n/a' && status !== 'pass';
+      return { shown: needed ? '—' : '', look: needed ? look(status) : null, mark: null as number | null };
+    }
+    dates.push(m.date);
+    if (m.earlier.length) {
+      mark ??= notes.length + 1;
+      for (const e of m.earlier) earlier.set(e.date, [...(earlier.get(e.date) ?? []), `${lower(READING_LABELS[field]!.label)} ${showAny(field, e.value)}`]);
+    }
+    return {
+      shown: bareReading(m.value as never),
+      look: status === null ? null : look(status),
+      mark: m.earlier.length ? mark : null,
+    };
+  });
+  const last = dates.sort().at(-1) ?? null;
+  if (mark !== null) {
+    const before = [...earlier.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([date, values]) => `on ${date}: ${values.join(', ')}`);
+    notes.push({ mark, text: `${c.board} ${c.ref}, re-tested: the marked readings replace those taken ${before.join('; ')}.` });
+  }
+  return {
+    ref: c.ref,
+    description: c.description,
+    anchor: circuitAnchor(c),
+    cells,
+    tested: last,
+    by: last ? testerOn(readings, last) : null,
+    look: look(worstStatus(a.checks.filter((k) => TEST_CHECKS.has(k.id)).map((k) => k.status))),
+  };
+}
+
+function designRow(c: CircuitRecord, a: CircuitAssessment) {
+  const derived = Object.fromEntries(DERIVED_FIELDS.map((k) => [k, typeof a.derived[k] === 'number' ? a.derived[k] : null])) as Record<(typeof DERIVED_FIELDS)[number], number | null>;
+  const ringWord = c.ring && !/\bring\b/i.test(c.description);
+  return {
+    ref: c.ref,
+    description: c.description,
+    anchor: circuitAnchor(c),
+    kind: c.kind,
+    device: c.device,
+    rating_a: c.rating_a,
+    cable: `${fmt(c.live_mm2)}/${fmt(c.cpc_mm2)} mm² ${c.conductor === 'cu' ? 'Cu' : 'Al'} ${c.insulation === 'pvc70' ? 'PVC' : 'XLPE'}`,
+    method: c.method,
+    length_m: c.length_m,
+    ib_a: c.ib_a,
+    ring: ringWord,
+    rcd: c.rcd_ma === undefined ? null : `${fmt(c.rcd_ma)} mA${c.rcd_type ? ` type ${c.rcd_type}` : ''}`,
+    derived,
+    look: look(worstStatus(a.checks.filter((k) => !TEST_CHECKS.has(k.id)).map((k) => k.status))),
+  };
+}
+
+export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
+  return project.file.boards.map((b) => {
+    const notes: Footnote[] = [];
+    const circuits = project.circuits.filter((c) => c.board === b.id);
+    return {
+      id: b.id,
+      location: b.location ?? null,
+      anchor: anchor('board', b.id),
+      zdb_ohm: b.zdb_ohm ?? null,
+      pfc_ka: b.pfc_ka ?? null,
+      tree: treeView(b.id, assessment),
+      circuits: circuits.map((c) => designRow(c, byCircuit.get(circuitKey(c.board, c.ref))!)),
+      results: circuits.map((c) => resultRow(c, byCircuit.get(circuitKey(c.board, c.ref))!, project.readings.get(circuitKey(c.board, c.ref)) ?? {}, notes)),
+      footnotes: notes,
+    };
+  });
+}
+
+export type ResultRow = ReturnType<typeof resultRow>;
+export type { Look };

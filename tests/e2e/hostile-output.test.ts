@@ -1,0 +1,83 @@
+// Where packsmith writes, and what its pages let a browser do: the output folder is claimed
+// (never a filesystem root, never a folder of other files), no symlink inside it is followed, every
+// page opens with a restrictive CSP, a theme's CSS cannot close its element, and a job folder's
+// name is never a link scheme.
+import { describe, expect, it } from 'vitest';
+import { cpSync, existsSync, mkdirSync, readFileSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { packsmith, ROOT } from '../helpers/cli.js';
+import { scratch } from '../helpers/archive.js';
+import { claimOut, OutputFolderError } from '../../src/archive/out.js';
+import { CSP } from '../../src/render/csp.js';
+
+const HTML_ONLY = { PACKSMITH_CHROME: '/nonexistent/chromium' };
+const DEMO = join(ROOT, 'projects/tannery-row-refit');
+/** The first element of the page's <head>. */
+const firstInHead = (html: string): string => /<head[^>]*>\s*(<[^>]+>)/i.exec(html)?.[1] ?? '';
+const CSP_TAG = `<meta http-equiv="Content-Security-Policy" content="${CSP}">`;
+
+describe('the output folder', () => {
+  it('is never the root of a filesystem', () => {
+    expect(() => claimOut('/')).toThrow(OutputFolderError);
+    expect(() => claimOut('/')).toThrow(/root of a filesystem/);
+  });
+
+  it('is refused when it holds files packsmith did not write, and they are left alone', () => {
+    const out = scratch('foreign');
+    writeFileSync(join(out, 'thesis.docx'), 'mine');
+    const r = packsmith(['build', DEMO, '--out', out], HTML_ONLY);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/holds files packsmith did not write \(thesis\.docx\)/);
+    expect(readdirSync(out)).toEqual(['thesis.docx']);
+  });
+
+  it('is accepted when packsmith wrote it before (marked, or holding only drafts and revisions)', () => {
+    const out = scratch('own');
+    expect(packsmith(['build', DEMO, '--out', out], HTML_ONLY).code).toBe(0);
+    expect(existsSync(join(out, '.packsmith-out'))).toBe(true);
+    expect(packsmith(['build', DEMO, '--out', out, '--force'], HTML_ONLY).code).toBe(0);
+    const legacy = scratch('legacy');
+    cpSync(join(out, 'tannery-row-refit'), join(legacy, 'tannery-row-refit'), { recursive: true });
+    cpSync(join(out, 'index.html'), join(legacy, 'index.html'));
+    expect(packsmith(['build', DEMO, '--out', legacy], HTML_ONLY).code).toBe(0);
+  });
+
+  it('never follows a symlink planted at out/<job>/draft', () => {
+    const out = scratch('planted');
+    const elsewhere = scratch('elsewhere');
+    writeFileSync(join(out, '.packsmith-out'), '');
+    mkdirSync(join(out, 'tannery-row-refit'));
+    symlinkSync(elsewhere, join(out, 'tannery-row-refit', 'draft'));
+    const r = packsmith(['build', DEMO, '--out', out], HTML_ONLY);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/draft is a symlink, which packsmith did not make/);
+    expect(readdirSync(elsewhere)).toEqual([]);
+  });
+});
+
+describe('pages packsmith writes', () => {
+  it("keeps a theme's CSS inside its <style> and opens every pack with the CSP", () => {
+    const theme = scratch('theme');
+    writeFileSync(join(theme, 'theme.css'), 'p{color:red}</style><meta http-equiv="refresh" content="0;url=https://example.invalid/"><style>');
+    const out = scratch('css-out');
+    expect(packsmith(['build', DEMO, '--out', out, '--theme', theme], HTML_ONLY).code).toBe(0);
+    const html = readFileSync(join(out, 'tannery-row-refit/draft/pack.html'), 'utf8');
+    expect(html).not.toMatch(/<meta http-equiv="refresh"/i);
+    expect(html).toContain('p{color:red}\\3C /style>');
+    expect(firstInHead(html)).toBe(CSP_TAG);
+    expect(html.match(/<\/style>/g)?.length).toBe(html.match(/<style>/g)?.length);
+  });
+
+  it('makes a job folder named javascript:alert(1) a relative link, and opens the site pages with the CSP', () => {
+    const firm = scratch('js-name');
+    const job = join(firm, 'projects', 'javascript:alert(1)');
+    cpSync(DEMO, job, { recursive: true });
+    const out = join(firm, 'out');
+    expect(packsmith(['build', job, '--out', out], HTML_ONLY).code).toBe(0);
+    const index = readFileSync(join(out, 'index.html'), 'utf8');
+    expect(index).not.toMatch(/href="javascript:/i);
+    expect(index).toContain('href="./javascript%3Aalert(1)/index.html"');
+    expect(firstInHead(index)).toBe(CSP_TAG);
+    expect(firstInHead(readFileSync(join(out, 'javascript:alert(1)/index.html'), 'utf8'))).toBe(CSP_TAG);
+  });
+});
