@@ -17,7 +17,7 @@ const SUFFIX: Record<string, { one: string[] }> = {
   ka: { one: ['1 kA', '1000 A'] },
   s: { one: ['1 s', '1000 ms'] },
   ms: { one: ['1 ms'] },
-  v: { one: ['1 V', '0.001 kV'] },
+  v: { one: ['250 V', '0.25 kV'] },
   ohm: { one: ['1 Ω', '1000 mΩ', '0.001 kΩ'] },
   mohm: { one: ['1 MΩ', '1000 kΩ'] },
   c: { one: ['1 °C'] },
@@ -46,7 +46,7 @@ describe('every field reads the unit its name says', () => {
     const suffix = /_([a-z0-9]+)$/.exec(field)![1]!;
     for (const written of SUFFIX[suffix]!.one) {
       const r = SupplySchema.safeParse({ earthing: 'TN-S', [field]: written });
-      expect((r.data as Record<string, unknown>)[field], `${field} = "${written}"`).toBeCloseTo(1, 9);
+      expect((r.data as Record<string, unknown>)[field], `${field} = "${written}"`).toBeCloseTo(suffix === 'v' ? 250 : 1, 9);
     }
   });
   it.each(['zdb_ohm', 'pfc_ka'])('project.yaml boards[].%s', (field) => {
@@ -60,7 +60,7 @@ describe('every field reads the unit its name says', () => {
     for (const written of SUFFIX[suffix]!.one) {
       const r = ReadingRowSchema.parse({ board: 'DB1', ref: '1', [field]: written });
       const v = (r as unknown as Record<string, { kind: string; value: number }>)[field]!;
-      expect(v.value, `${field} = "${written}"`).toBeCloseTo(1, 9);
+      expect(v.value, `${field} = "${written}"`).toBeCloseTo(suffix === 'v' ? 250 : 1, 9);
     }
   });
   it('insulation_mm "0.6 m" is 600 mm: more than 0.5 m surrounded by insulation, factor 0.5 (BS 7671 523.9)', () => {
