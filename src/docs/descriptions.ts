@@ -37,6 +37,7 @@ export const DESCRIPTIONS: Record<string, string> = {
   'project.boards': 'every distribution board; circuits.csv names them in its board column',
   'project.boards[].id': 'the board\'s id, e.g. DB1, as written in circuits.csv and the readings',
   'project.boards[].location': 'where the board is',
+  'project.boards[].fed_by': 'BOARD/REF of the circuit in circuits.csv that feeds this board; none: fed from the origin',
   'project.boards[].zdb_ohm': 'earth fault loop impedance at the board, measured (else derived)',
   'project.boards[].pfc_ka': 'prospective fault current at the board, measured',
   'project.readings': 'how readings files are read',

@@ -62,7 +62,7 @@ describe('changes since the previous revision', () => {
 
   it('lists circuits added and removed', () => {
     const c = diff(data((d) => {
-      edit(d, 'circuits.csv', 'DB1,3,Dust extractor,motor,8,mcb:C,16,2.5,1.5,12,C,,,\n', 'DB1,4,Yard floodlight,lighting,1.2,mcb:B,6,1.5,1.0,30,C,,,\n');
+      edit(d, 'circuits.csv', 'DB1,3,Dust extractor,motor,8,mcb:C,16,2.5,1.5,12,C,,,6,12000,\n', 'DB1,4,Yard floodlight,lighting,1.2,mcb:B,6,1.5,1.0,30,C,,,6,5000,\n');
       edit(d, 'readings/2026-10-09.csv', 'DB1,3,0.21,>999,250,500,ok,0.58,,,,T. Marwood\n', '');
     }));
     expect(c.circuitsAdded).toEqual([{ board: 'DB1', ref: '4', description: 'Yard floodlight' }]);

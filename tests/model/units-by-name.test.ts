@@ -8,7 +8,7 @@ import { capacityOf } from '../../src/calc/design/capacity.js';
 import { BASE_CIRCUIT } from '../helpers/project.js';
 
 /** The unit a field's name ends in, and a value of 1 in it written in another unit of the quantity. */
-const SUFFIX: Record<string, { one: string[] }> = {
+const SUFFIX: Record<string, { one: string[]; value?: number }> = {
   mm: { one: ['1 mm', '0.1 cm', '0.001 m'] },
   m: { one: ['1 m', '1000 mm', '100 cm'] },
   mm2: { one: ['1 mm²', '1 mm2'] },
