@@ -139,7 +139,7 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(v.stdout.split('\n').filter((l) => l.startsWith(archive)).join('\n')).not.toMatch(/rev-2/); // findings name rev-1 only
     const r = issue(job, out, '--date', '2026-10-14', '--accept-open-items');
     expect(r.code).toBe(1);
-    expect(r.stderr).toMatch(/does not check out/);
+    expect(r.stderr).toMatch(/do(es)? not check out/);
     expect(existsSync(rev(3))).toBe(false);
   });
 });
