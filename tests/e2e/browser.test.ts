@@ -162,11 +162,11 @@ describe('the built site in Chromium', () => {
     await page.setViewport({ width: 1200, height: 900, deviceScaleFactor: 1 });
     await page.goto(pathToFileURL(join(out, 'index.html')).href, { waitUntil: 'load' });
     const shown = () => page.$$eval('#jobs-body tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('td .muted')!.textContent));
-    expect(await shown()).toEqual(['marsh-street-surgery', 'pack-job', 'tannery-row-refit']);
+    expect(await shown()).toEqual(['heronsgate-pottery', 'marsh-street-surgery', 'pack-job', 'tannery-row-refit']);
     const row = await page.$eval('#jobs-body tr:last-child', (r) => r.textContent);
     expect(row).toContain('Amberlode Coffee Roasters Ltd'); // the client
     expect(row).toContain('Unit 7, Tannery Row, Millbrook MB2 9LD'); // the site
-    expect(row).toMatch(/2 fail, 1 attention, 142 pass/); // the counts
+    expect(row).toMatch(/1 fail, 3 attention, 144 pass/); // the counts
     await page.type('#find', 'tannery');
     expect(await shown()).toEqual(['tannery-row-refit']);
     await page.click('#find', { count: 3 });
@@ -178,7 +178,7 @@ describe('the built site in Chromium', () => {
     expect(await page.$eval('#none', (p) => (p as HTMLElement).hidden)).toBe(false);
     await page.click('#find', { count: 3 });
     await page.keyboard.press('Backspace');
-    expect(await shown()).toHaveLength(3);
+    expect(await shown()).toHaveLength(4);
     const dates = () => page.$$eval('#jobs-body tr', (rows) => rows.map((r) => r.getAttribute('data-date')!));
     await page.click('#sort');
     const newest = await dates();

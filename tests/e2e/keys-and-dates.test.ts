@@ -51,7 +51,7 @@ describe('a signed issue with the firm file', () => {
     expect(v.code).toBe(0);
     expect(v.stdout).toContain(`signed: 1 revision by Brackwater Electrical Co-op with the key ${fp}`);
     // the site in out/ links the revision where it is
-    expect(readFileSync(join(out, 'archive-job', 'index.html'), 'utf8')).toContain('href="../../records/archive-job/rev-1/pack.pdf"');
+    expect(readFileSync(join(out, 'archive-job', 'index.html'), 'utf8')).toContain('href="./../../records/archive-job/rev-1/pack.pdf"');
   }, 240_000);
 
   it('refuses an archive inside the drafts\' folder', () => {
