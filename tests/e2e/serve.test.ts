@@ -21,7 +21,10 @@ const PHONE = { width: 390, height: 844, deviceScaleFactor: 2, isMobile: true, h
 function jobWithRing(parent: string): string {
   const job = copyFixture('pack-job', parent);
   const lines = readFileSync(join(job, 'circuits.csv'), 'utf8').trimEnd().split('\n');
-  const out = [`${lines[0]},ring`, ...lines.slice(1).map((l) => `${l},no`), 'DB-A,4,Kitchen sockets (ring),power,20,mcb:B,32,2.5,1.5,40,C,,,,,yes'];
+  const header = `${lines[0]},ring`.split(',');
+  // the ring row written by column name, so it has exactly the header's cells
+  const ringRow: Record<string, string> = { board: 'DB-A', ref: '4', description: 'Kitchen sockets (ring)', kind: 'power', ib_a: '20', device: 'mcb:B', rating_a: '32', live_mm2: '2.5', cpc_mm2: '1.5', length_m: '40', method: 'C', ring: 'yes', breaking_ka: '6' };
+  const out = [header.join(','), ...lines.slice(1).map((l) => `${l},no`), header.map((h) => ringRow[h] ?? '').join(',')];
   writeFileSync(join(job, 'circuits.csv'), `${out.join('\n')}\n`);
   return job;
 }
