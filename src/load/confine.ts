@@ -27,12 +27,9 @@ export type ConfinedFile =
   | { kind: 'file'; path: string }
   | { kind: 'refused'; message: string };
 
-/**
- * Where `rel` inside `root` may be read from: a regular file whose real path is inside `root`.
- * `what` names the folder in messages ("the job folder", "the theme folder").
- */
-export function confinedFile(root: string, rel: string, what: string): ConfinedFile {
-  const rootReal = realFolder(root);
+/** The real path of `rel` inside `root` (links followed), and whether it stays inside `root`. */
+function realInside(root: string, rel: string, noun: 'file' | 'folder', what: string):
+  { kind: 'missing' } | { kind: 'refused'; message: string } | { kind: 'real'; path: string; inside: boolean } {
   const path = join(root, rel);
   try {
     lstatSync(path);
@@ -43,11 +40,22 @@ export function confinedFile(root: string, rel: string, what: string): ConfinedF
   try {
     real = realpathSync(path);
   } catch {
-    return { kind: 'refused', message: `a link to nothing (a broken symlink); put the file itself in ${what}` };
+    return { kind: 'refused', message: `a link to nothing (a broken symlink); put the ${noun} itself in ${what}` };
   }
-  if (!isInside(rootReal, real)) {
+  return { kind: 'real', path: real, inside: isInside(realFolder(root), real) };
+}
+
+/**
+ * Where `rel` inside `root` may be read from: a regular file whose real path is inside `root`.
+ * `what` names the folder in messages ("the job folder", "the theme folder").
+ */
+export function confinedFile(root: string, rel: string, what: string): ConfinedFile {
+  const r = realInside(root, rel, 'file', what);
+  if (r.kind !== 'real') return r;
+  if (!r.inside) {
     return { kind: 'refused', message: `a link to a file outside ${what}; packsmith reads only files inside ${what}: copy the file in instead of linking to it` };
   }
+  const real = r.path;
   const st = statSync(real);
   if (st.isDirectory()) return { kind: 'refused', message: 'a folder where a file was expected' };
   if (!st.isFile()) return { kind: 'refused', message: 'not a regular file (a device, pipe or socket); put a plain file here' };
@@ -65,19 +73,10 @@ export function readConfined(root: string, rel: string, what: string): Buffer | 
 
 /** A sub-folder of `root` that may be listed: its real path inside `root`. */
 export function confinedFolder(root: string, rel: string, what: string): { kind: 'missing' } | { kind: 'folder'; path: string } | { kind: 'refused'; message: string } {
-  const path = join(root, rel);
-  try {
-    lstatSync(path);
-  } catch {
-    return { kind: 'missing' };
-  }
-  let real: string;
-  try {
-    real = realpathSync(path);
-  } catch {
-    return { kind: 'refused', message: `a link to nothing (a broken symlink); put the folder itself in ${what}` };
-  }
-  if (!isInside(realFolder(root), real)) return { kind: 'refused', message: `a link to a folder outside ${what}; packsmith reads only inside ${what}` };
+  const r = realInside(root, rel, 'folder', what);
+  if (r.kind !== 'real') return r;
+  const real = r.path;
+  if (!r.inside) return { kind: 'refused', message: `a link to a folder outside ${what}; packsmith reads only inside ${what}` };
   if (!statSync(real).isDirectory()) return { kind: 'refused', message: `a file where a folder was expected` };
   return { kind: 'folder', path: real };
 }
