@@ -8,7 +8,8 @@ import { join } from 'node:path';
 import { packsmith, ROOT } from '../helpers/cli.js';
 import { scratch } from '../helpers/archive.js';
 import { claimOut, OutputFolderError } from '../../src/archive/out.js';
-import { CSP } from '../../src/render/csp.js';
+import { CSP, cspMeta } from '../../src/render/csp.js';
+import { SITE_SCRIPT_SHA256 } from '../../src/archive/site.js';
 
 const HTML_ONLY = { PACKSMITH_CHROME: '/nonexistent/chromium' };
 const DEMO = join(ROOT, 'projects/tannery-row-refit');
@@ -77,7 +78,9 @@ describe('pages packsmith writes', () => {
     const index = readFileSync(join(out, 'index.html'), 'utf8');
     expect(index).not.toMatch(/href="javascript:/i);
     expect(index).toContain('href="./javascript%3Aalert(1)/index.html"');
-    expect(firstInHead(index)).toBe(CSP_TAG);
+    // The index allows exactly one script, its own search and sort, by hash; nothing else runs.
+    expect(firstInHead(index)).toBe(cspMeta([SITE_SCRIPT_SHA256]));
+    expect(index).toMatch(/script-src 'sha256-[A-Za-z0-9+/=]+';/);
     expect(firstInHead(readFileSync(join(out, 'javascript:alert(1)/index.html'), 'utf8'))).toBe(CSP_TAG);
   });
 });

@@ -94,7 +94,7 @@ describe('packsmith serve over HTTP', () => {
 
   it('shows a job\'s errors, located, instead of its pack', async () => {
     edit(job, 'readings/2026-03-06.csv', 'DB-A,3,0.2,1.5', 'DB-A,3,0,2,1.5');
-    for (let i = 0; i < 100 && !s.jobs.get('pack-job')!.errors.length; i++) await new Promise((r) => setTimeout(r, 50));
+    for (let i = 0; i < 600 && !s.jobs.get('pack-job')!.errors.length; i++) await new Promise((r) => setTimeout(r, 50));
     const page = await call(s.port, '/job/pack-job/');
     expect(page.body).toMatch(/readings\/2026-03-06\.csv:\d+:\d+: /);
     expect(page.body).toContain('class="src"');
