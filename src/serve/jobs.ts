@@ -8,6 +8,7 @@ import { basename, join, resolve } from 'node:path';
 import { loadJob } from '../job.js';
 import { defaultJobs, draftPack, pdfDate } from '../build.js';
 import { engineCache } from '../render/engine.js';
+import { jobArchiveSettings } from '../archive/location.js';
 import { cachedTreeHash, lazyPrinter, packPdf, styleOf, type Printer } from '../produce.js';
 import { findChromium } from '../print/browser.js';
 import { inspectJob } from '../archive/verify.js';
@@ -148,7 +149,8 @@ export class LiveJobs {
   private draftOf(project: Project, assessment: Assessment, job: LiveJob): Draft {
     const style = styleOf(project, job.dir, {}, this.engineFor, this.treeHash);
     job.theme = project.file.theme ? resolve(job.dir, project.file.theme) : null;
-    const latest = inspectJob(this.out, project.name).revisions.at(-1) ?? null;
+    // the latest issued revision, from the job's archive (never from the drafts' folder)
+    const latest = inspectJob(jobArchiveSettings(job.dir).archive, project.name).revisions.at(-1) ?? null;
     const { label, data, pack } = draftPack(project, assessment, latest, style, this.log);
     const version = job.version + 1;
     let printed: Promise<Uint8Array> | null = null;

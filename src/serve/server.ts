@@ -14,6 +14,7 @@ import { draftPage, errorsPage, formPage, indexPage, messagePage, nonceStyles } 
 import { saveSession, type SessionInput } from './session.js';
 import { READING_COLUMNS, type ReadingField } from '../model/schema.js';
 import { NO_CHROMIUM_HELP } from '../print/browser.js';
+import { jobArchiveSettings } from '../archive/location.js';
 
 export interface ServeOptions {
   /** a folder of job folders (default projects/), or one job folder */
@@ -105,7 +106,10 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
   const out = resolve(opts.out);
   const jobs = new LiveJobs({ root: opts.folder, out, log });
   const token = isLoopback(opts.host) ? null : randomBytes(24).toString('base64url');
-  const archiveDir = [join(jobs.root, 'archive'), join(dirname(jobs.root), 'archive')].find((d) => existsSync(d)) ?? null;
+  // the archive the served jobs issue to (the firm file's `archive:`, else archive/ beside their folder)
+  const firstJob = jobs.folders()[0];
+  const archiveDir = [firstJob ? jobArchiveSettings(firstJob).archive : null, join(jobs.root, 'archive'), join(dirname(jobs.root), 'archive')]
+    .find((d): d is string => d !== null && existsSync(d)) ?? null;
   const events = new Events();
   let port = 0;
 

@@ -6,6 +6,7 @@ import { request } from 'node:http';
 import { join } from 'node:path';
 import { copyFixture, edit, scratch } from '../helpers/archive.js';
 import { serve, type Serving } from '../../src/serve/server.js';
+import { packsmith } from '../helpers/cli.js';
 
 interface Reply { status: number; headers: Record<string, string | string[] | undefined>; body: string }
 
@@ -114,6 +115,23 @@ describe('packsmith serve beyond loopback', () => {
       expect(first.status).toBe(303);
       const cookie = String(first.headers['set-cookie']).split(';')[0]!;
       expect((await call(s.port, '/', { headers: { cookie } })).status).toBe(200);
+    } finally {
+      await s.close();
+    }
+  });
+});
+
+describe('packsmith serve after an issue', () => {
+  it("compares the draft with the job's latest revision, read from the job's archive (not from out/)", async () => {
+    const root = scratch('serve-issued');
+    const job = copyFixture('pack-job', root);
+    const issued = packsmith(['issue', job, '--by', 'T. Marwood', '--date', '2026-10-12', '--accept-open-items', '--out', join(root, 'out')]);
+    expect(issued.code).toBe(0);
+    edit(job, 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,9.9', 'DB-A,1,0.9,>999,>999,500,ok,0.73');
+    const s = await serve({ folder: join(root, 'projects'), out: join(root, 'other-out'), host: '127.0.0.1', port: 0, log: () => {} });
+    try {
+      const page = (await call(s.port, '/job/pack-job/')).body;
+      expect(page).toMatch(/Revision 1/);
     } finally {
       await s.close();
     }
