@@ -2,13 +2,13 @@
 // file (packsmith.yaml, the nearest one in the folder that holds the job folders or above it)
 // that the archive needs. Issued revisions go to `archive:` (relative to the firm file), else to
 // archive/ beside the folder that holds the job folders (projects/<job> → archive/<job>/rev-N/),
-// never under the drafts' --out. Kept apart from the firm-file loader so either can change alone.
-import { existsSync, readFileSync, statSync } from 'node:fs';
+// never under the drafts' --out. The firm file is found and read as for the job's other firm
+// settings (load/firm.ts), so the archive and the pack always follow the same file.
 import { dirname, join, resolve } from 'node:path';
-import { readYaml } from '../load/yaml.js';
+import { FIRM_FILE, firmFileFrom, readFirmFile } from '../load/firm.js';
 import type { LocatedError } from '../load/raw.js';
 
-export const FIRM_FILE = 'packsmith.yaml';
+export { FIRM_FILE };
 export const DEFAULT_ARCHIVE = 'archive';
 
 export interface ArchiveSettings {
@@ -21,18 +21,6 @@ export interface ArchiveSettings {
   errors: LocatedError[];
 }
 
-/** The nearest packsmith.yaml in `dir` or a folder above it. */
-export function nearestFirmFile(dir: string): string | null {
-  let at = resolve(dir);
-  for (;;) {
-    const candidate = join(at, FIRM_FILE);
-    if (existsSync(candidate) && statSync(candidate).isFile()) return candidate;
-    const up = dirname(at);
-    if (up === at) return null;
-    at = up;
-  }
-}
-
 function setting(data: unknown, key: string): unknown {
   return data !== null && typeof data === 'object' && !Array.isArray(data) ? (data as Record<string, unknown>)[key] : undefined;
 }
@@ -42,12 +30,12 @@ function setting(data: unknown, key: string): unknown {
  * --archive option) wins over the firm file.
  */
 export function archiveSettings(holder: string, override: string | null = null): ArchiveSettings {
-  const firmFile = nearestFirmFile(holder);
+  const firmFile = firmFileFrom(holder);
   const fallback = join(dirname(resolve(holder)), DEFAULT_ARCHIVE);
   const settings: ArchiveSettings = { firmFile, archive: override ? resolve(override) : fallback, publicKey: null, errors: [] };
   if (!firmFile) return settings;
-  const { doc, errors } = readYaml(FIRM_FILE, readFileSync(firmFile, 'utf8'));
-  if (!doc) return { ...settings, errors: errors.map((e) => ({ ...e, file: firmFile })) };
+  const { doc, errors } = readFirmFile(firmFile);
+  if (!doc) return { ...settings, errors };
   const base = dirname(firmFile);
   for (const key of ['archive', 'public_key'] as const) {
     const v = setting(doc.data, key);

@@ -69,7 +69,7 @@ export const DESCRIPTIONS: Record<string, string> = {
   'circuits.cpc_protected': 'a separate cpc (cpc_in_cable: no) is mechanically protected',
   'circuits.let_through_a2s': 'the device\'s let-through I²t at the board\'s prospective fault current, from its maker',
   'circuits.device_ia_a': 'the maker\'s current that operates the device within the required time, for a device whose characteristic the library does not hold',
-  'firm.archive': 'where issued revisions live, relative to packsmith.yaml (default: archive/ beside it)',
+  'firm.archive': 'where issued revisions live, relative to packsmith.yaml (default: archive/ beside the folder that holds the job folders)',
   'firm.public_key': 'the firm\'s public key for verify: a .pub file written by packsmith key create, relative to packsmith.yaml',
   'circuits.board': 'the board id (listed under boards in project.yaml)',
   'circuits.ref': 'the circuit\'s reference on its board, e.g. 3 or L1',

@@ -28,19 +28,16 @@ export interface Firm {
   /** the parsed document (null when it cannot be read as YAML; see errors) */
   doc: RawYaml | null;
   errors: LocatedError[];
-  /** where issued revisions live: `archive` resolved against the firm file's folder (default <dir>/archive) */
-  archive: string;
-  /** `public_key` as written (a .pub file relative to the firm file), or null */
-  public_key: string | null;
-  /** `public_key` resolved against the firm file's folder, or null */
-  publicKeyFile: string | null;
 }
 
 const isFile = (p: string): boolean => existsSync(p) && statSync(p).isFile();
 
 /** The packsmith.yaml that applies to a job folder, or null when there is none. */
-export function findFirmFile(jobDir: string): string | null {
-  let dir = dirname(resolve(jobDir));
+export const findFirmFile = (jobDir: string): string | null => firmFileFrom(dirname(resolve(jobDir)));
+
+/** The nearest packsmith.yaml in `start` or above it, up to a repository root, or null. */
+export function firmFileFrom(start: string): string | null {
+  let dir = resolve(start);
   for (;;) {
     const candidate = join(dir, FIRM_FILE);
     if (isFile(candidate)) return candidate;
@@ -67,18 +64,11 @@ export function readFirmFile(path: string, shownAs = path): Firm {
     bytes = readFileSync(abs);
   } catch (err) {
     const why = err instanceof Error ? err.message : String(err);
-    return { path: abs, dir, file: shownAs, bytes: Buffer.alloc(0), doc: null, errors: [{ file: shownAs, row: 1, column: 1, message: `cannot read the firm file: ${why}` }], archive: join(dir, 'archive'), public_key: null, publicKeyFile: null };
+    return { path: abs, dir, file: shownAs, bytes: Buffer.alloc(0), doc: null, errors: [{ file: shownAs, row: 1, column: 1, message: `cannot read the firm file: ${why}` }] };
   }
   const { doc, errors } = readYaml(shownAs, bytes.toString('utf8'));
-  const data = (doc?.data ?? {}) as Record<string, unknown>;
-  const archive = text(data.archive);
-  const key = text(data.public_key);
-  return {
-    path: abs, dir, file: shownAs, bytes, doc, errors,
-    archive: archive === null ? join(dir, 'archive') : resolve(dir, archive),
-    public_key: key,
-    publicKeyFile: key === null ? null : resolve(dir, key),
-  };
+  // where issued revisions live and the firm's public key are the archive's to read (archive/location.ts)
+  return { path: abs, dir, file: shownAs, bytes, doc, errors };
 }
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);

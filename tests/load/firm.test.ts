@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { findFirmFile, readFirm } from '../../src/load/firm.js';
 import { readJob } from '../../src/load/job.js';
+import { jobArchiveSettings } from '../../src/archive/location.js';
 import { validate } from '../../src/model/validate.js';
 import { formatError } from '../../src/load/raw.js';
 
@@ -86,14 +87,16 @@ describe('firm settings (packsmith.yaml)', () => {
     expect(raw.files.get('../../packsmith.yaml')?.toString()).toBe(FIRM);
   });
 
-  it('gives the archive folder and public key relative to itself', () => {
-    const firm = readFirm(plain)!;
+  it('gives the archive folder and public key relative to itself (the same file the job settings come from)', () => {
+    const firm = jobArchiveSettings(plain);
+    expect(firm.firmFile).toBe(readFirm(plain)!.path);
     expect(firm.archive).toBe(join(root, 'issued'));
-    expect(firm.public_key).toBeNull();
+    expect(firm.publicKey).toBeNull();
     writeFileSync(join(root, 'north', 'packsmith.yaml'), 'public_key: keys/firm.pub\n');
-    const north = readFirm(join(root, 'north', 'job-b'))!;
-    expect(north.archive).toBe(join(root, 'north', 'archive'));
-    expect(north.publicKeyFile).toBe(join(root, 'north', 'keys', 'firm.pub'));
+    const north = jobArchiveSettings(join(root, 'north', 'job-b'));
+    expect(north.firmFile).toBe(readFirm(join(root, 'north', 'job-b'))!.path);
+    expect(north.archive).toBe(join(root, 'archive')); // no archive: given: archive/ beside the folder holding the jobs
+    expect(north.publicKey).toBe(join(root, 'north', 'keys', 'firm.pub'));
   });
 
   it('takes a theme relative to the firm file', () => {
