@@ -42,8 +42,9 @@ describe('additional protection (411.3.3)', () => {
     // a rule that certainly applies beside it still fails: a concealed cable (BS 7671 522.6.202)
     expect(ap({ kind: 'power', rating_a: '40', live_mm2: '10', cpc_mm2: '4', concealed: 'yes' }, 'bs-7671').status).toBe('fail');
   });
-  it('mobile equipment used outdoors up to 32 A needs it', () => {
+  it('mobile equipment used outdoors up to 32 A needs it; on a larger circuit, whose equipment\'s rating is not recorded, attention', () => {
     expect(ap({ kind: 'motor', outdoors: 'yes', rating_a: '16' }).status).toBe('fail');
+    expect(ap({ kind: 'motor', outdoors: 'yes', rating_a: '40', live_mm2: '10', cpc_mm2: '4' }).status).toBe('attention');
   });
   it('an exemption is attention with its text outside dwellings, refused in a dwelling', () => {
     const other = ap({ kind: 'power', rcd_exemption: 'risk assessment RA-3' }, 'bs-7671', 'other');

@@ -5,8 +5,9 @@
 // covering or mechanical protection (522.6.202/203). A time-delayed (S) RCD does not give it; an RCD
 // of unrecorded type cannot be shown to. Without it: `fail`, or `attention` with the documented
 // reason (rcd_exemption) where the set allows one — for socket-outlets other than in dwellings.
-// The socket-outlet rule is on the socket-outlet's rating, which circuits.csv does not record: on a
-// circuit above that rating the requirement is uncertain, and its absence `attention`, never `n/a`.
+// The socket-outlet and outdoor rules are on the socket-outlet's or the equipment's rating, which
+// circuits.csv does not record: on a circuit above it the requirement is uncertain, and the RCD's
+// absence `attention`, never `n/a`.
 import type { Check } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { hasSockets } from '../circuit-facts.js';
@@ -28,6 +29,8 @@ export const additionalProtection: Check = ({ circuit, rules }) => {
   }
   if (circuit.outdoors && circuit.rating_a <= ap.outdoor_upto_a) {
     reasons.push({ why: `equipment used outdoors on a ${fmt(circuit.rating_a)} A circuit (up to ${ap.outdoor_upto_a} A)`, clause: ap.clauses.outdoor, exemptable: false });
+  } else if (circuit.outdoors) {
+    reasons.push({ why: `mobile equipment rated up to ${ap.outdoor_upto_a} A used outdoors, if this ${fmt(circuit.rating_a)} A circuit supplies any (the equipment's rating is not recorded)`, clause: ap.clauses.outdoor, exemptable: false, unsure: true });
   }
   if (ap.luminaires_in_dwellings && dwelling && circuit.kind === 'lighting') {
     reasons.push({ why: 'luminaires in a dwelling', clause: ap.clauses.luminaires, exemptable: false });
