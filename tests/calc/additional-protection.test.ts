@@ -26,12 +26,25 @@ describe('additional protection (411.3.3)', () => {
   it('an RCD of unrecorded type cannot be shown not to be time-delayed: attention', () => {
     expect(ap({ kind: 'power', rcd_ma: '30' }).status).toBe('attention');
   });
-  it('is n/a for fixed equipment, and for socket-outlets above 32 A', () => {
+  it('is n/a for fixed equipment', () => {
     expect(ap({ kind: 'heating' }).status).toBe('n/a');
-    expect(ap({ kind: 'power', rating_a: '40', live_mm2: '10', cpc_mm2: '4' }).status).toBe('n/a');
   });
-  it('mobile equipment used outdoors up to 32 A needs it', () => {
+  it('on a circuit above 32 A with socket-outlets, whose own rating is not recorded: attention without the RCD, never n/a (before: n/a)', () => {
+    // 411.3.3 is on the socket-outlet's rated current, not the circuit's: a 40 A cooker circuit may
+    // carry a 13 A socket-outlet on its control unit (BS 1363, 13 A)
+    const cooker = { kind: 'heating', sockets: 'yes', rating_a: '40', live_mm2: '10', cpc_mm2: '4', ib_a: '30' };
+    const r = ap(cooker);
+    expect(r.status).toBe('attention');
+    expect(r.basis).toMatch(/411\.3\.3.*/);
+    expect(r.basis).toMatch(/rating is not recorded/);
+    expect(ap({ ...cooker, rcd_ma: '30', rcd_type: 'A' }).status).toBe('pass');
+    expect(ap({ kind: 'power', rating_a: '40', live_mm2: '10', cpc_mm2: '4' }).status).toBe('attention');
+    // a rule that certainly applies beside it still fails: a concealed cable (BS 7671 522.6.202)
+    expect(ap({ kind: 'power', rating_a: '40', live_mm2: '10', cpc_mm2: '4', concealed: 'yes' }, 'bs-7671').status).toBe('fail');
+  });
+  it('mobile equipment used outdoors up to 32 A needs it; on a larger circuit, whose equipment\'s rating is not recorded, attention', () => {
     expect(ap({ kind: 'motor', outdoors: 'yes', rating_a: '16' }).status).toBe('fail');
+    expect(ap({ kind: 'motor', outdoors: 'yes', rating_a: '40', live_mm2: '10', cpc_mm2: '4' }).status).toBe('attention');
   });
   it('an exemption is attention with its text outside dwellings, refused in a dwelling', () => {
     const other = ap({ kind: 'power', rcd_exemption: 'risk assessment RA-3' }, 'bs-7671', 'other');

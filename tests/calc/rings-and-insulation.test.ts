@@ -13,8 +13,13 @@ describe('rings (BS 7671 433.1.204)', () => {
     expect(r.basis).toMatch(/433\.1\.204/);
     expect(r.basis).not.toMatch(/0\.67/);
   });
-  it('a B32 ring on 1.5 mm² fails: outside 433.1.204 it is judged as any circuit, In 32 A > Iz 19.5 A (before: passed)', () => {
+  it('a B32 ring on 1.5 mm² fails: outside 433.1.204 it is judged as any circuit, In 32 A > Iz', () => {
     expect(overload(context({ ring: 'yes', live_mm2: '1.5', cpc_mm2: '1.0' })).status).toBe('fail');
+    // XLPE: Iz 24 A (IEC 60364-5-52 Table B.52.3, method C, 2 loaded) ≥ the old "0.67 × In" = 21.4 A,
+    // which passed it before; In 32 A > Iz 24 A (IEC 60364-4-43, 433.1)
+    const xlpe = overload(context({ ring: 'yes', live_mm2: '1.5', cpc_mm2: '1.0', insulation: 'xlpe90', ib_a: '12' }));
+    expect(xlpe).toMatchObject({ status: 'fail', limit: 24 });
+    expect(xlpe.basis).toMatch(/433\.1\)/);
   });
   it('a ring whose cable has Iz below 20 A fails (grouped: 27 × 0.7 = 18.9 A, Table B.52.17)', () => {
     expect(overload(context({ ring: 'yes', grouped: '3' })).status).toBe('fail');

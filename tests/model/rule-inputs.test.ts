@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { ProjectFileSchema, CircuitSchema } from '../../src/model/schema.js';
 import { phasesOnSupply, ratedVoltage } from '../../src/calc/inputs.js';
 import { BASE_CIRCUIT, projectFile } from '../helpers/project.js';
+import { demoCopy, errorsOf, replaceIn } from '../helpers/job.js';
 
 const yaml = (over: Record<string, unknown>) => ProjectFileSchema.safeParse({
   title: 'T', client: { name: 'C' }, site: { address: 'S' }, installer: { firm: 'F' },
@@ -40,5 +41,23 @@ describe('consistency of circuits.csv with project.yaml', () => {
     expect(ratedVoltage(circuit({ device: 'fuse:bs88-3', rating_a: '32', phases: '3' }), f230)).toMatchObject({ field: 'device' }); // 398 V between lines
     expect(ratedVoltage(circuit({ device: 'mcb:B', phases: '3' }), f230)).toBeNull(); // IEC 60898-1: up to 440 V
     expect(ratedVoltage(circuit({ device: 'fuse:bs3036', rating_a: '30' }), f230)).toBeNull();
+  });
+});
+
+describe('the same input errors through the job loader, located in the file to correct', () => {
+  it('a three-phase circuit on a single-phase supply, a BS 88-3 fuse between lines, IT earthing and Cmin 1.05', () => {
+    const single = demoCopy();
+    replaceIn(single, 'project.yaml', 'phases: 3', 'phases: 1');
+    // DB1/6, the three-phase roaster, is on row 7 of circuits.csv
+    expect(errorsOf(single)).toEqual(expect.arrayContaining([expect.stringMatching(/circuits\.csv:7:.*three-phase circuit; project\.yaml gives a single-phase supply/)]));
+    const between = demoCopy();
+    replaceIn(between, 'circuits.csv', 'DB2,2,Cellar chiller,power,8,fuse:bs88-3,20,2.5,1.5,10,C,1,', 'DB2,2,Cellar chiller,power,8,fuse:bs88-3,20,2.5,1.5,10,C,3,');
+    expect(errorsOf(between)).toEqual([expect.stringMatching(/circuits\.csv:14:.*fuse:bs88-3 is rated up to 240 V.*398 V between lines/)]);
+    const isolated = demoCopy();
+    replaceIn(isolated, 'project.yaml', 'earthing: TN-C-S', 'earthing: IT');
+    expect(errorsOf(isolated)).toEqual([expect.stringMatching(/project\.yaml:\d+:.*IT systems are not assessed/)]);
+    const cmin = demoCopy();
+    replaceIn(cmin, 'project.yaml', 'rules:\n', 'rules:\n  cmin: 1.05\n');
+    expect(errorsOf(cmin)).toEqual([expect.stringMatching(/project\.yaml:\d+:.*Cmin above 1\.0/)]);
   });
 });

@@ -117,6 +117,20 @@ describe('the pack view', () => {
     expect(fv.rules.circuitOverrides).toEqual(['DB-A 3: required disconnection time 5 s, set for this circuit']);
   });
 
+  it('names the rule set in the pack and lists each departure in the summary with the circuits it affects (CONTRACT.md, departures)', () => {
+    const { project, assessment } = job(FIXTURE);
+    const html = renderPack(project, assessment, OPTS);
+    expect(html).toMatch(/Rule set <strong>IEC 60364<\/strong> \(iec-60364: IEC 60364-4-41/);
+    const summary = html.slice(html.indexOf('id="summary"'), html.indexOf('id="supply"'));
+    // DB-A 3's disconnect_s 5 s is longer than Table 41.1's 0.4 s (TN, 230 V, fixed equipment up to 32 A)
+    expect(summary).toContain('Departures from the rule set');
+    expect(summary).toMatch(/<ul class="departures"><li>[^<]*required disconnection time set for the circuit 5 s[^<]*longer than the rule set(&#x27;|')s 0\.4 s; circuits affected: DB-A\/3<\/li><\/ul>/);
+    const marsh = job('projects/marsh-street-surgery');
+    const m = renderPack(marsh.project, marsh.assessment, OPTS);
+    expect(m).toMatch(/Rule set <strong>BS 7671<\/strong>/);
+    expect(m).not.toContain('Departures from the rule set');
+  });
+
   it('shows RA on a TT supply, "not recorded" for a missing value, and the sign-off people given', () => {
     const tt = job('projects/marsh-street-surgery');
     const html = renderPack(tt.project, tt.assessment, OPTS);

@@ -5,6 +5,9 @@
 // covering or mechanical protection (522.6.202/203). A time-delayed (S) RCD does not give it; an RCD
 // of unrecorded type cannot be shown to. Without it: `fail`, or `attention` with the documented
 // reason (rcd_exemption) where the set allows one — for socket-outlets other than in dwellings.
+// The socket-outlet and outdoor rules are on the socket-outlet's or the equipment's rating, which
+// circuits.csv does not record: on a circuit above it the requirement is uncertain, and the RCD's
+// absence `attention`, never `n/a`.
 import type { Check } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { hasSockets } from '../circuit-facts.js';
@@ -15,12 +18,19 @@ const id = 'additional-protection';
 export const additionalProtection: Check = ({ circuit, rules }) => {
   const ap = rules.additional_protection;
   const dwelling = rules.premises === 'dwelling';
-  const reasons: { why: string; clause: string; exemptable: boolean }[] = [];
+  const reasons: { why: string; clause: string; exemptable: boolean; unsure?: true }[] = [];
+  const exemptable = ap.socket_exemption_outside_dwellings && !dwelling;
   if (hasSockets(circuit) && circuit.rating_a <= ap.sockets_upto_a) {
-    reasons.push({ why: `socket-outlets on a ${fmt(circuit.rating_a)} A circuit (up to ${ap.sockets_upto_a} A)`, clause: ap.clauses.sockets, exemptable: ap.socket_exemption_outside_dwellings && !dwelling });
+    reasons.push({ why: `socket-outlets on a ${fmt(circuit.rating_a)} A circuit (up to ${ap.sockets_upto_a} A)`, clause: ap.clauses.sockets, exemptable });
+  } else if (hasSockets(circuit)) {
+    // the rule is on the socket-outlet's own rating, which circuits.csv does not record: a circuit
+    // above it may still supply smaller ones (a cooker control unit's socket-outlet)
+    reasons.push({ why: `socket-outlets rated up to ${ap.sockets_upto_a} A, if this ${fmt(circuit.rating_a)} A circuit's are (their rating is not recorded; a cooker control unit's, for one, is smaller)`, clause: ap.clauses.sockets, exemptable, unsure: true });
   }
   if (circuit.outdoors && circuit.rating_a <= ap.outdoor_upto_a) {
     reasons.push({ why: `equipment used outdoors on a ${fmt(circuit.rating_a)} A circuit (up to ${ap.outdoor_upto_a} A)`, clause: ap.clauses.outdoor, exemptable: false });
+  } else if (circuit.outdoors) {
+    reasons.push({ why: `mobile equipment rated up to ${ap.outdoor_upto_a} A used outdoors, if this ${fmt(circuit.rating_a)} A circuit supplies any (the equipment's rating is not recorded)`, clause: ap.clauses.outdoor, exemptable: false, unsure: true });
   }
   if (ap.luminaires_in_dwellings && dwelling && circuit.kind === 'lighting') {
     reasons.push({ why: 'luminaires in a dwelling', clause: ap.clauses.luminaires, exemptable: false });
@@ -47,5 +57,8 @@ export const additionalProtection: Check = ({ circuit, rules }) => {
     return result(id, 'attention', `${lacking}; ${required}; omitted under ${ap.clauses.exemption}: "${exemption}"`, numbers);
   }
   const refused = exemption ? `; the exemption given ("${exemption}") is not allowed here${dwelling ? ' (premises: dwelling)' : ''}` : '';
+  if (reasons.every((r) => r.unsure)) {
+    return result(id, 'attention', `${lacking}: an RCD of IΔn ≤ ${ap.max_ma} mA, not time-delayed, is ${required}${refused}`, numbers);
+  }
   return result(id, 'fail', `${lacking}: an RCD of IΔn ≤ ${ap.max_ma} mA, not time-delayed, is ${required}${refused}`, numbers);
 };
