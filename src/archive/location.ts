@@ -3,9 +3,10 @@
 // that the archive needs. Issued revisions go to `archive:` (relative to the firm file), else to
 // archive/ beside the folder that holds the job folders (projects/<job> → archive/<job>/rev-N/),
 // never under the drafts' --out. Kept apart from the firm-file loader so either can change alone.
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { readYaml } from '../load/yaml.js';
+import { readConfined } from '../load/confine.js';
 import type { LocatedError } from '../load/raw.js';
 
 export const FIRM_FILE = 'packsmith.yaml';
@@ -46,7 +47,14 @@ export function archiveSettings(holder: string, override: string | null = null):
   const fallback = join(dirname(resolve(holder)), DEFAULT_ARCHIVE);
   const settings: ArchiveSettings = { firmFile, archive: override ? resolve(override) : fallback, publicKey: null, errors: [] };
   if (!firmFile) return settings;
-  const { doc, errors } = readYaml(FIRM_FILE, readFileSync(firmFile, 'utf8'));
+  let text: string;
+  try {
+    // read only where it really lies in its folder: a link to a file elsewhere is refused (load/confine.ts)
+    text = (readConfined(dirname(firmFile), FIRM_FILE, "the firm file's folder") ?? Buffer.alloc(0)).toString('utf8');
+  } catch (e) {
+    return { ...settings, errors: [{ file: firmFile, row: 1, column: 1, message: `cannot read the firm file: ${(e as Error).message}` }] };
+  }
+  const { doc, errors } = readYaml(FIRM_FILE, text);
   if (!doc) return { ...settings, errors: errors.map((e) => ({ ...e, file: firmFile })) };
   const base = dirname(firmFile);
   for (const key of ['archive', 'public_key'] as const) {

@@ -10,6 +10,7 @@ import { assess } from '../../src/calc/assess.js';
 import { CALC_RULES } from '../../src/calc/inputs.js';
 import { BoardSchema, MEASURED, SupplySchema } from '../../src/model/schema.js';
 import { PLAUSIBLE } from '../../src/reference/plausibility.js';
+import { archiveSettings } from '../../src/archive/location.js';
 
 const LOCATED = /^[^:]+:\d+:\d+: \S/;
 const RETEST = 'readings/2026-11-20-retest.csv';
@@ -177,6 +178,18 @@ describe('reads stay inside the job folder', () => {
     symlinkSync(secret(job), join(job, 'readings/2026-11-21.csv'));
     const errors = only(job, 'readings/2026-11-21.csv:1:1: a link to a file outside the job folder');
     expect(errors.join('\n')).not.toContain('TOP-SECRET');
+  });
+  it("refuses a firm file (packsmith.yaml) linking outside the firm's folder, for the job and for the archive settings", () => {
+    const job = demoCopy();
+    const firm = join(job, '..', '..');
+    const path = secret(job);
+    writeFileSync(path, 'installer:\n  firm: TOP-SECRET Ltd\narchive: TOP-SECRET\n');
+    symlinkSync(path, join(firm, 'packsmith.yaml'));
+    const errors = only(job, "../../packsmith.yaml:1:1: cannot read the firm file: packsmith.yaml: a link to a file outside the firm file's folder");
+    expect(errors.join('\n')).not.toContain('TOP-SECRET');
+    const settings = archiveSettings(join(firm, 'projects'));
+    expect(settings.errors.map((e) => e.message)).toEqual([expect.stringMatching(/^cannot read the firm file: packsmith\.yaml: a link to a file outside/)]);
+    expect(settings.archive).not.toContain('TOP-SECRET');
   });
   it('refuses a theme outside the firm folder that holds the jobs', () => {
     for (const theme of ['../../../../../../../../etc', '/usr/share']) {
