@@ -140,6 +140,8 @@ const restored = (numbers: number[]): string[] =>
 export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
   if (!opts.by.trim()) return refuse(2, '--by needs the name of the person issuing the pack');
   if (!isIsoDay(opts.date)) return refuse(2, `found issue date "${opts.date}"; expected a date as YYYY-MM-DD`);
+  const job = loadJob(opts.job, opts.today ? { today: opts.today } : {});
+  if (!job.ok) return refuse(2, ...job.errors.map((e) => `${job.raw.name}/${formatError(e)}`), `${job.errors.length} problem(s) in ${job.raw.name}: nothing was issued`);
   let out: string;
   try {
     out = claimOut(opts.out); // the drafts' folder, whose site is rewritten: checked before anything is written
@@ -147,8 +149,6 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
     if (e instanceof OutputFolderError) return refuse(2, e.message);
     throw e;
   }
-  const job = loadJob(opts.job, opts.today ? { today: opts.today } : {});
-  if (!job.ok) return refuse(2, ...job.errors.map((e) => `${job.raw.name}/${formatError(e)}`), `${job.errors.length} problem(s) in ${job.raw.name}: nothing was issued`);
   const chromium = findChromium();
   if (!chromium) return refuse(2, `${NO_CHROMIUM_HELP} A revision needs its PDF, so nothing was issued.`);
   const { project, assessment } = job;
