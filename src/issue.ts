@@ -4,7 +4,7 @@
 // the drafts' out/, which only gets the site rewritten. Refused, with the reason, when the job has
 // errors, when nothing changed since the last revision, when the archive or the record does not
 // check out, or when checks fail or are not verified (unless open items are accepted).
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError } from './load/raw.js';
 import type { Project } from './model/validate.js';
@@ -26,7 +26,7 @@ import { openStaging } from './archive/freeze.js';
 import { clearStale } from './archive/files.js';
 import { step } from './archive/steps.js';
 import { writeSite } from './archive/site.js';
-import { claimOut, outDir, OutputFolderError } from './archive/out.js';
+import { claimOut, OutputFolderError } from './archive/out.js';
 import { lazyPrinter, packFiles, packPdf, styleOf } from './produce.js';
 import { VERSION } from './version.js';
 
@@ -142,6 +142,13 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
   if (!isIsoDay(opts.date)) return refuse(2, `found issue date "${opts.date}"; expected a date as YYYY-MM-DD`);
   const job = loadJob(opts.job, opts.today ? { today: opts.today } : {});
   if (!job.ok) return refuse(2, ...job.errors.map((e) => `${job.raw.name}/${formatError(e)}`), `${job.errors.length} problem(s) in ${job.raw.name}: nothing was issued`);
+  let out: string;
+  try {
+    out = claimOut(opts.out); // the drafts' folder, whose site is rewritten: checked before anything is written
+  } catch (e) {
+    if (e instanceof OutputFolderError) return refuse(2, e.message);
+    throw e;
+  }
   const chromium = findChromium();
   if (!chromium) return refuse(2, `${NO_CHROMIUM_HELP} A revision needs its PDF, so nothing was issued.`);
   const { project, assessment } = job;
@@ -149,7 +156,6 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
   if (where.errors.length > 0) return refuse(2, ...where.errors.map(formatError), 'the firm file has errors: nothing was issued');
   const signing = signingKey(opts.key ?? null, where.publicKey);
   if (!signing.ok) return signing.result;
-  const out = resolve(opts.out);
   const archiveDir = where.archive;
   if (archiveDir === out || archiveDir.startsWith(`${out}/`)) return refuse(2, `the archive (${archiveDir}) is inside the drafts' folder ${out}, which may be deleted and rebuilt at any time: keep issued revisions with the jobs (archive: in packsmith.yaml, or --archive)`);
   const jobDir = job.raw.dir;

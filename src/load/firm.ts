@@ -7,8 +7,9 @@
 // the first folder that is a repository root (holds `.git`) or to the filesystem root; the
 // nearest packsmith.yaml wins. A folder's own packsmith.yaml is looked for before it is taken
 // as the repository root, so one at the top of a repository of jobs is found.
-import { existsSync, readFileSync, statSync } from 'node:fs';
-import { dirname, isAbsolute, join, relative, resolve } from 'node:path';
+import { existsSync, statSync } from 'node:fs';
+import { basename, dirname, isAbsolute, join, relative, resolve } from 'node:path';
+import { readConfined } from './confine.js';
 import { readYaml } from './yaml.js';
 import type { LocatedError, RawYaml, SourcePosition } from './raw.js';
 
@@ -55,13 +56,24 @@ export function readFirm(jobDir: string): Firm | null {
   return path === null ? null : readFirmFile(path, relative(resolve(jobDir), path));
 }
 
+/**
+ * A firm file's bytes, read only where it really lies in its own folder: a link to a file
+ * elsewhere is refused (throws), never followed, like every file packsmith reads.
+ */
+export function firmFileBytes(path: string): Buffer {
+  const abs = resolve(path);
+  const bytes = readConfined(dirname(abs), basename(abs), "the firm file's folder");
+  if (bytes === null) throw new Error(`${basename(abs)}: no such file`);
+  return bytes;
+}
+
 /** One firm file, read: `shownAs` is the name errors give it (default: its path as given). */
 export function readFirmFile(path: string, shownAs = path): Firm {
   const abs = resolve(path);
   const dir = dirname(abs);
   let bytes: Buffer;
   try {
-    bytes = readFileSync(abs);
+    bytes = firmFileBytes(abs);
   } catch (err) {
     const why = err instanceof Error ? err.message : String(err);
     return { path: abs, dir, file: shownAs, bytes: Buffer.alloc(0), doc: null, errors: [{ file: shownAs, row: 1, column: 1, message: `cannot read the firm file: ${why}` }] };

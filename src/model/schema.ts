@@ -5,6 +5,10 @@ import { DEVICE_CODES } from '../reference/device-codes.js';
 import { RULE_SET_IDS } from '../reference/rule-sets/index.js';
 import { choice, quantity, reading, word, yesNo } from './cells.js';
 import type { Quantity } from './units.js';
+import { implausible } from './plausible.js';
+import { plainText } from '../load/number.js';
+
+const implausibleFrequency = (f: number): string | null => implausible('frequency_hz', f, plainText(f));
 
 // ---------------------------------------------------------------- readings/*.csv
 
@@ -82,7 +86,8 @@ export const SupplySchema = z.strictObject({
   }),
   u0_v: quantity('volt', { positive: true, field: 'u0_v' }).default(230),
   phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
-  frequency_hz: z.number({ error: 'expected the frequency in Hz, e.g. 50' }).default(50),
+  frequency_hz: z.number({ error: 'expected the frequency in Hz, e.g. 50' })
+    .refine((f) => implausibleFrequency(f) === null, { error: (iss) => implausibleFrequency(iss.input as number) ?? '' }).default(50),
   ze_ohm: quantity('ohm', { field: 'ze_ohm' }).optional(),
   pfc_ka: quantity('kiloampere', { field: 'pfc_ka' }).optional(),
   /** three-phase prospective fault current at the origin, where measured or given (else ≈ 2 × pfc_ka) */

@@ -23,6 +23,7 @@ export interface PlausibleRange {
 const LOOP = 'a loop through real conductors and the supply transformer has resistance; loop testers resolve 0.01 Ω and read at most 2000 Ω (from memory)';
 const CONTINUITY = 'a conductor has resistance, so a continuity reading is above zero (a display of 0.00 is below the instrument\'s resolution: re-test with the leads nulled); continuity testers read at most 2000 Ω (from memory)';
 const INSULATION = 'zero is a dead short (a real reading, which fails); installation testers read at most a few hundred GΩ (from memory)';
+const FAULT_CURRENT = 'a low-voltage supply delivers some fault current, and no low-voltage switchgear is rated above about 200 kA (from memory)';
 const RCD_TIME = 'an RCD cannot trip in no time; testers stop a test well before 5 s and show a non-trip as ">N" (from memory)';
 
 /** Plausible ranges by field name (readings columns, project.yaml supply and boards fields). */
@@ -43,7 +44,9 @@ export const PLAUSIBLE: Readonly<Record<string, PlausibleRange>> = {
   u0_v: { atLeast: 6, atMost: 400, unit: 'V', why: 'a supply\'s nominal voltage to earth is at most 400 V in low-voltage systems (IEC 60038 Table 1: 120, 230, 240, 277, 347, 400 V) and at least a few volts in extra-low-voltage ones' },
   ze_ohm: { atLeast: 0.01, atMost: 2000, unit: 'Ω', why: LOOP },
   zdb_ohm: { atLeast: 0.01, atMost: 2000, unit: 'Ω', why: LOOP },
-  pfc_ka: { above: 0, atMost: 200, unit: 'kA', why: 'a low-voltage supply delivers some fault current, and no low-voltage switchgear is rated above about 200 kA (from memory)' },
+  pfc_ka: { above: 0, atMost: 200, unit: 'kA', why: FAULT_CURRENT },
+  pfc_3ph_ka: { above: 0, atMost: 200, unit: 'kA', why: FAULT_CURRENT },
+  frequency_hz: { atLeast: 15, atMost: 500, unit: 'Hz', why: 'public supplies run at 50 or 60 Hz (IEC 60038); the low-voltage supplies furthest from these, traction at 16.7 Hz and aircraft at 400 Hz, stay inside 15 to 500 Hz (from memory)' },
   ra_ohm: { above: 0, atMost: 20_000, unit: 'Ω', why: 'an earth electrode has resistance, and above 20 kΩ it is not in contact with the ground (from memory)' },
 };
 

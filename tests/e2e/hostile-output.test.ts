@@ -21,15 +21,27 @@ describe('the output folder', () => {
   it('is never the root of a filesystem', () => {
     expect(() => claimOut('/')).toThrow(OutputFolderError);
     expect(() => claimOut('/')).toThrow(/root of a filesystem/);
+    // the reproducer: `build --out /` wrote /index.html
+    const job = join(scratch('root-out'), 'projects', 'tannery-row-refit');
+    cpSync(DEMO, job, { recursive: true });
+    for (const args of [['build', job], ['issue', job, '--by', 'A. Tester', '--accept-open-items', '--archive', scratch('root-archive')]]) {
+      const r = packsmith([...args, '--out', '/'], HTML_ONLY);
+      expect(r.code, r.stderr).toBe(2);
+      expect(r.stderr).toMatch(/--out "\/" is the root of a filesystem/);
+    }
   });
 
   it('is refused when it holds files packsmith did not write, and they are left alone', () => {
     const out = scratch('foreign');
     writeFileSync(join(out, 'thesis.docx'), 'mine');
-    const r = packsmith(['build', DEMO, '--out', out], HTML_ONLY);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/holds files packsmith did not write \(thesis\.docx\)/);
-    expect(readdirSync(out)).toEqual(['thesis.docx']);
+    const job = join(scratch('foreign-job'), 'projects', 'tannery-row-refit');
+    cpSync(DEMO, job, { recursive: true });
+    for (const args of [['build', DEMO], ['issue', job, '--by', 'A. Tester', '--accept-open-items', '--archive', scratch('foreign-archive')]]) {
+      const r = packsmith([...args, '--out', out], HTML_ONLY);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(/holds files packsmith did not write \(thesis\.docx\)/);
+      expect(readdirSync(out)).toEqual(['thesis.docx']);
+    }
   });
 
   it('is accepted when packsmith wrote it before (marked, or holding only drafts and revisions)', () => {

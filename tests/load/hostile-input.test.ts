@@ -8,6 +8,9 @@ import { readJob } from '../../src/load/job.js';
 import { validate } from '../../src/model/validate.js';
 import { assess } from '../../src/calc/assess.js';
 import { CALC_RULES } from '../../src/calc/inputs.js';
+import { BoardSchema, MEASURED, SupplySchema } from '../../src/model/schema.js';
+import { PLAUSIBLE } from '../../src/reference/plausibility.js';
+import { archiveSettings } from '../../src/archive/location.js';
 
 const LOCATED = /^[^:]+:\d+:\d+: \S/;
 const RETEST = 'readings/2026-11-20-retest.csv';
@@ -176,6 +179,18 @@ describe('reads stay inside the job folder', () => {
     const errors = only(job, 'readings/2026-11-21.csv:1:1: a link to a file outside the job folder');
     expect(errors.join('\n')).not.toContain('TOP-SECRET');
   });
+  it("refuses a firm file (packsmith.yaml) linking outside the firm's folder, for the job and for the archive settings", () => {
+    const job = demoCopy();
+    const firm = join(job, '..', '..');
+    const path = secret(job);
+    writeFileSync(path, 'installer:\n  firm: TOP-SECRET Ltd\narchive: TOP-SECRET\n');
+    symlinkSync(path, join(firm, 'packsmith.yaml'));
+    const errors = only(job, "../../packsmith.yaml:1:1: cannot read the firm file: packsmith.yaml: a link to a file outside the firm file's folder");
+    expect(errors.join('\n')).not.toContain('TOP-SECRET');
+    const settings = archiveSettings(join(firm, 'projects'));
+    expect(settings.errors.map((e) => e.message)).toEqual([expect.stringMatching(/^cannot read the firm file: packsmith\.yaml: a link to a file outside/)]);
+    expect(settings.archive).not.toContain('TOP-SECRET');
+  });
   it('refuses a theme outside the firm folder that holds the jobs', () => {
     for (const theme of ['../../../../../../../../etc', '/usr/share']) {
       const job = demoCopy();
@@ -202,5 +217,37 @@ describe('plausibility', () => {
     expect(zs?.status).toBe('attention');
     expect(zs?.basis).toMatch(/measured Zs is below (the measured R1\+R2 1\.07 Ω|Zdb 0\.31 Ω at DB1)/); // the first implausibility found is named
   });
+  it('gives every measured field and every numeric supply and board field a range', () => {
+    const numeric = (shape: object) => Object.keys(shape).filter((k) => /_(v|hz|ohm|mohm|ka|a|ms)$/.test(k));
+    const fields = [...Object.keys(MEASURED), ...numeric(SupplySchema.shape), ...numeric(BoardSchema.shape)];
+    expect(fields).toEqual(expect.arrayContaining(['zs_ohm', 'u0_v', 'frequency_hz', 'pfc_3ph_ka', 'zdb_ohm']));
+    expect(fields.filter((f) => !(f in PLAUSIBLE))).toEqual([]);
+  });
+  it.each(['0', '99999'])('refuses a three-phase fault current pfc_3ph_ka of %s kA, at the origin and at a board', (v) => {
+    // fault current above 0, switchgear rated to about 200 kA (src/reference/plausibility.ts, from memory)
+    const job = demoCopy();
+    replaceIn(job, 'project.yaml', '  pfc_ka: 2.1\n', `  pfc_ka: 2.1\n  pfc_3ph_ka: ${v}\n`);
+    only(job, `project.yaml:20:15: supply.pfc_3ph_ka: found "${v}", which is not a plausible pfc_3ph_ka`);
+    const board = demoCopy();
+    replaceIn(board, 'project.yaml', 'zdb_ohm: 0.31, pfc_ka: 1.9 }', `zdb_ohm: 0.31, pfc_ka: 1.9, pfc_3ph_ka: ${v} }`);
+    only(board, 'project.yaml:31:');
+    expect(errorsOf(board)[0]).toMatch(/boards\.0\.pfc_3ph_ka: found ".*", which is not a plausible pfc_3ph_ka/);
+  });
+  it.each(['0', '-50', '999999'])('refuses a supply frequency_hz of %s', (v) => {
+    // public supplies are 50 or 60 Hz (IEC 60038); 15 to 500 Hz holds every low-voltage supply (from memory)
+    const job = demoCopy();
+    replaceIn(job, 'project.yaml', 'frequency_hz: 50', `frequency_hz: ${v}`);
+    only(job, `project.yaml:17:17: supply.frequency_hz: found "${v}", which is not a plausible frequency_hz`);
+  });
+  it('reads an insulation resistance of 0 MΩ (a dead short) and fails it: zero is a reading, not a slip', () => {
+    // IEC 60364-6 Table 6.1: at least 1 MΩ at 500 V d.c.; 0 MΩ is far below it
+    const job = demoCopy();
+    const cells = RETEST_ROW.split(',');
+    cells[5] = '0'; // ir_le_mohm
+    replaceIn(job, RETEST, RETEST_ROW, cells.join(','));
+    const v = validate(readJob(job), CALC_RULES);
+    expect(v.ok, v.ok ? '' : v.errors.map((e) => e.message).join('\n')).toBe(true);
+    const c = v.ok ? assess(v.project).circuits.find((x) => x.board === 'DB1' && x.ref === '10') : undefined;
+    expect(c?.checks.find((k) => k.id === 'insulation')?.status).toBe('fail');
+  });
 });
-

@@ -1,6 +1,6 @@
 // Firm themes over the built-in templates, and templates that fail loudly.
 import { describe, expect, it } from 'vitest';
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { loadJob } from '../../src/job.js';
@@ -66,6 +66,50 @@ describe('a firm theme', () => {
     writeFileSync(join(dir, 'circuits.csv'), 'board,ref\n');
     const raw = readJob(dir);
     expect(raw.errors).toContainEqual(expect.objectContaining({ file: 'project.yaml', row: 2, column: 8, message: expect.stringMatching(/^theme: no folder "..\/no-such-theme"/) }));
+  });
+});
+
+describe('a theme reads only inside its folder', () => {
+  // A file outside the theme that a link inside it names: its text must reach neither the pack nor a message.
+  const secret = (): string => {
+    const path = join(mkdtempSync(join(tmpdir(), 'packsmith-elsewhere-')), 'secret.txt');
+    writeFileSync(path, 'TOP-SECRET {{firm.name}}');
+    return path;
+  };
+  const fails = (dir: string, name: string): void => {
+    let message = '';
+    try {
+      render(dir);
+    } catch (e) {
+      message = e instanceof Error ? e.message : String(e);
+    }
+    expect(message).toMatch(new RegExp(`theme file .*${name}: a link to a file outside the theme folder`));
+    expect(message).not.toContain('TOP-SECRET');
+  };
+  it('refuses a partial that is a symlink to a file outside the theme', () => {
+    const dir = theme({ 'theme.css': '' });
+    mkdirSync(join(dir, 'partials'));
+    symlinkSync(secret(), join(dir, 'partials', 'signoff.hbs'));
+    fails(dir, 'partials/signoff.hbs');
+  });
+  it('refuses a partials folder that is a symlink to a folder outside the theme', () => {
+    const dir = theme({ 'theme.css': '' });
+    const elsewhere = mkdtempSync(join(tmpdir(), 'packsmith-elsewhere-'));
+    writeFileSync(join(elsewhere, 'signoff.hbs'), 'TOP-SECRET');
+    symlinkSync(elsewhere, join(dir, 'partials'));
+    fails(dir, 'partials/signoff.hbs');
+  });
+  it('refuses a logo or stylesheet that is a symlink to a file outside the theme, never embedding it', () => {
+    for (const name of ['logo.svg', 'logo.png', 'theme.css', 'pack.hbs']) {
+      const dir = theme({});
+      symlinkSync(secret(), join(dir, name));
+      fails(dir, name);
+    }
+  });
+  it('follows a symlink that stays inside the theme', () => {
+    const dir = theme({ 'firm.css': '.inside-link { color: #0a0b0c; }' });
+    symlinkSync(join(dir, 'firm.css'), join(dir, 'theme.css'));
+    expect(render(dir).html).toContain('.inside-link { color: #0a0b0c; }');
   });
 });
 
