@@ -99,6 +99,8 @@ describe('the pack view', () => {
     expect(summary).toContain(Handlebars.escapeExpression(view.openItems[0]!.basis));
     expect(summary).not.toContain(Handlebars.escapeExpression(attention[0]!.basis));
     expect(summary).toContain(`<a href="#${attention[0]!.anchor}">working in the appendix</a>`);
+    expect(view.attentionLinked).toBe(true);
+    expect(summary).toContain('A check that needs attention has its full working under its circuit in the appendix.');
   });
 
   it('escapes user text everywhere, header and footer included', () => {
