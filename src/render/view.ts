@@ -77,6 +77,8 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     overall: look(overallStatus(assessment)),
     summary: (Object.keys(STATUS_LOOK) as Status[]).map((s) => ({ count: assessment.summary[s], look: look(s) })),
     openItems,
+    // the summary says where the working of an item needing attention is, when there is one
+    attentionLinked: openItems.some((o) => !o.full),
     departures: assessment.departures.map((d) => ({ basis: plainWords(d.basis), circuits: d.circuits.join(', ') })),
     boards: boardSchedules(project, byCircuit, assessment),
     resultHeads: resultHeads(),

@@ -34,6 +34,7 @@ describe('re-tests in the pack', () => {
   });
   it('prints the trace in the measured results of the pack', () => {
     const html = renderPack(v.project, a, { revisionLabel: 'DRAFT', draft: true, date: '2026-11-20' });
-    expect(html).toContain('<div class="history">9.8 Ω on 2026-11-13 (fail), re-tested 1.39 Ω on 2026-11-20 (pass)</div>');
+    // under the circuit's measured Zs in the appendix
+    expect(html).toContain('<span class="history">9.8 Ω on 2026-11-13 (fail), re-tested 1.39 Ω on 2026-11-20 (pass)</span>');
   });
 });

@@ -11,7 +11,7 @@ import { comparison } from '../../src/render/values.js';
 import { DERIVED_FIELDS } from '../../src/render/view.js';
 import { assessmentText } from '../../src/render/text.js';
 
-const JOBS = ['projects/tannery-row-refit', 'projects/marsh-street-surgery', 'tests/fixtures/pack-job', 'tests/fixtures/failing-job',
+const JOBS = ['projects/tannery-row-refit', 'projects/marsh-street-surgery', 'projects/heronsgate-pottery', 'tests/fixtures/pack-job', 'tests/fixtures/failing-job',
   'tests/fixtures/tt-instrument-job', 'tests/fixtures/worked-example', 'tests/fixtures/long-board'];
 const loaded = JOBS.map((dir) => {
   const j = loadJob(dir);

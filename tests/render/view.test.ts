@@ -1,6 +1,7 @@
 // The view model and the built-in templates: contents in order, derived values as calc gives
 // them, every reading with its verdict, open items first, user text escaped.
 import { describe, expect, it } from 'vitest';
+import Handlebars from 'handlebars';
 import { loadJob } from '../../src/job.js';
 import { buildView, DERIVED_FIELDS, worstStatus } from '../../src/render/view.js';
 import { RESULT_COLUMNS } from '../../src/render/sections/schedules.js';
@@ -91,6 +92,15 @@ describe('the pack view', () => {
     const html = renderPack(project, assessment, OPTS);
     const summary = html.slice(html.indexOf('id="summary"'), html.indexOf('id="supply"'));
     expect(summary.indexOf('Open items')).toBeLessThan(summary.indexOf('Checks by status'));
+    // a fail or a missing reading says why in the summary; an item needing attention points to its working in the appendix
+    const attention = view.openItems.filter((o) => o.look.status === 'attention');
+    expect(attention.length).toBeGreaterThan(0);
+    for (const o of view.openItems) expect(o.full, `${o.board} ${o.ref} ${o.check}`).toBe(o.look.status !== 'attention');
+    expect(summary).toContain(Handlebars.escapeExpression(view.openItems[0]!.basis));
+    expect(summary).not.toContain(Handlebars.escapeExpression(attention[0]!.basis));
+    expect(summary).toContain(`<a href="#${attention[0]!.anchor}">working in the appendix</a>`);
+    expect(view.attentionLinked).toBe(true);
+    expect(summary).toContain('A check that needs attention has its full working under its circuit in the appendix.');
   });
 
   it('escapes user text everywhere, header and footer included', () => {

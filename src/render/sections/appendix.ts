@@ -13,7 +13,8 @@ import { anchor, circuitAnchor } from './schedules.js';
 /** A check as the appendix shows it: `full` where the reader needs the whole working. */
 export function checkLine(k: CheckResult) {
   const full = k.status !== 'pass' && k.status !== 'n/a';
-  const line = full ? plainWords(k.basis) : (comparison(k) ?? plainWords(k.basis));
+  // a passing check without a pair of numbers gives its finding, the basis before its first colon
+  const line = full ? plainWords(k.basis) : (comparison(k) ?? plainWords(k.basis).split(': ')[0]!);
   const history = historyLine(k);
   return { id: k.id, label: checkLabel(k.id), line, full, date: k.date ?? null, history: history === null ? null : plainWords(history), remedy: k.remedy ? plainWords(k.remedy) : null, look: look(k.status) };
 }

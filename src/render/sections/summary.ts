@@ -13,7 +13,7 @@ const SLOW: CheckId[] = ['disconnection', 'zs-design', 'zs-measured'];
 interface Who { board: string; ref: string; description: string; anchor: string }
 
 export function openItemsAndSafety(project: Project, byCircuit: Map<string, CircuitAssessment>) {
-  const openItems: (Who & { check: string; label: string; basis: string; history: string | null; look: Look })[] = [];
+  const openItems: (Who & { check: string; label: string; basis: string; full: boolean; history: string | null; look: Look })[] = [];
   const slow: Who[] = [];
   const unverified: Who[] = [];
   for (const c of project.circuits) {
@@ -22,7 +22,8 @@ export function openItemsAndSafety(project: Project, byCircuit: Map<string, Circ
     for (const k of a.checks) {
       if (!OPEN.includes(k.status)) continue;
       const history = historyLine(k);
-      openItems.push({ ...who, check: k.id, label: checkLabel(k.id), basis: plainWords(k.basis), history, look: look(k.status) });
+      // a fail or a missing reading gives its reason here; an item needing attention points to its working in the appendix
+      openItems.push({ ...who, check: k.id, label: checkLabel(k.id), basis: plainWords(k.basis), full: k.status !== 'attention', history, look: look(k.status) });
     }
     if (a.checks.some((k) => k.status === 'fail' && SLOW.includes(k.id))) slow.push(who);
     if (a.checks.some((k) => k.status === 'not-verified')) unverified.push(who);
