@@ -9,7 +9,7 @@ import { fmt } from '../model/units.js';
 import { CAPACITY_SIZES_MM2 } from '../reference/capacity.js';
 import type { DeviceCode } from '../reference/device-codes.js';
 import { sizesOf } from './design/conductor.js';
-import { longestRun } from './design/max-length.js';
+import { boardShare, longestRun } from './design/max-length.js';
 import type { Check, CircuitContext } from './types.js';
 
 /** The circuit as it would be with some fields changed. */
@@ -89,6 +89,9 @@ export function remedy(id: string, check: Check, ctx: CircuitContext, changed: C
   }
   const other = tried.find((k) => check(changed(k.change)).status === 'pass');
   if (other) options.push(other.words);
-  if (options.length === 0) return `no single change tried passes (${BY_LENGTH.has(id) ? 'a shorter run, ' : ''}${tried.length ? 'the next sizes up, another curve or rating' : 'nothing else to try'}): the design needs another look`;
+  if (options.length === 0) {
+    const share = boardShare(ctx, check(ctx));
+    return `no single change tried passes (${BY_LENGTH.has(id) ? 'a shorter run, ' : ''}${tried.length ? 'the next sizes up, another curve or rating' : 'nothing else to try'})${share || ': the design needs another look'}`;
+  }
   return `would pass with ${options.join(', or ')}`;
 }

@@ -71,6 +71,15 @@ describe('two levels, worked by hand (tests/fixtures/tree-two-level)', () => {
     expect(byZs).toBeGreaterThan(byDrop);
     expect(circuit(a, 'DB2/1').derived.max_length_m).toBe(Math.floor(byDrop * 10) / 10);
     expect(check(a, 'DB2/1', 'voltage-drop').remedy).toBe('would pass with a run of at most 21.1 m (now 25 m), or 4 mm² live conductors (now 2.5 mm²)');
+    expect(circuit(a, 'DB2/1').max_length_basis).toBe('21.1 m, set by voltage drop from the origin');
+  });
+  it('the sub-main\'s own longest run: (5 − 0) % × 230 V / (2 × 1.376 mΩ/m × 50 A) = 83.5 m, well under where design Zs would stop it', () => {
+    const perMetre = (2 * 1.15 * HOT * 50) / 1000; // V/m, 16 mm² at 70 °C, Ib 50 A
+    const byDrop = (0.05 * 230) / perMetre; // 83.57 m
+    // gG 63 A at 5 s: Ia 320 A, the IEC 60269-1 gate Imax(5 s) (src/reference/fuses-iec-60269.ts, from memory)
+    const byZs = ((230 * 0.95) / 320 - 0.35) / (feederR1R2 / 40); // 94.9 m
+    expect(byZs).toBeGreaterThan(byDrop);
+    expect(circuit(a, 'DB1/1').derived.max_length_m).toBe(Math.floor(byDrop * 10) / 10);
   });
   it('the sub-main is a distribution circuit: 5 s on TN (IEC 60364-4-41, 411.3.2.3)', () => {
     expect(circuit(a, 'DB1/1').derived.required_disconnect_s).toBe(5);
@@ -113,6 +122,19 @@ describe('three levels (tests/fixtures/tree-three-level)', () => {
     expect(k.limit).toBe(3);
     expect(k.status).toBe('fail');
     expect(k.basis).toMatch(/DB1\/1 2\.39 % \+ DB2\/2 1\.6 % \+ this circuit 0\.847 %/);
+  });
+  it('has no longest run for DB3/1 and says why: 2.393 + 1.602 = 3.995 % reaches DB3 before its own cable, over the 3 % for lighting', () => {
+    const toBoard = [(2 * 40 * 1.15 * HOT * 50) / 1000, (2 * 20 * 3.08 * HOT * 25) / 1000].map((v) => v / 230 * 100);
+    expect(toBoard[0]! + toBoard[1]!).toBeGreaterThan(3); // IEC 60364-5-52 Table G.52.1, lighting
+    // design Zs alone: (230 × 0.95 / 30 A − 0.6400 Ω) / (2 × 18.1 mΩ/m × 1.1965) = 153.4 m
+    // (type B 6 A trips within 0.1 s at 5 In = 30 A, IEC 60898-1)
+    const byZs = ((230 * 0.95) / 30 - zdb3) / ((2 * 18.1 * HOT) / 1000);
+    expect(byZs).toBeCloseTo(153.4, 1);
+    const c = circuit(a, 'DB3/1');
+    expect(c.derived.max_length_m).toBeNull();
+    expect(c.max_length_basis).toContain('voltage drop from the origin passes at no length from 0.5 m to 5 km (fail at 15 m: the drop from the origin to DB3 is already 4 % of the 3 % allowed)');
+    expect(c.max_length_basis).toContain(`design Zs alone would allow up to ${Math.floor(byZs)} m`);
+    expect(check(a, 'DB3/1', 'voltage-drop').remedy).toMatch(/no single change tried passes .*: the drop from the origin to DB3 is already 4 % of the 3 % allowed$/);
   });
   it('lists DB3 first in project.yaml yet orders the boards from the origin down', () => {
     expect(a.boards!.map((b) => b.board)).toEqual(['DB1', 'DB2', 'DB3']);

@@ -112,8 +112,18 @@ function designRow(c: CircuitRecord, a: CircuitAssessment) {
     ring: ringWord,
     rcd: c.rcd_ma === undefined ? null : `${fmt(c.rcd_ma)} mA${c.rcd_type ? ` type ${c.rcd_type}` : ''}`,
     derived,
+    /** no length passes: the cell says "none" and the key below the table says why */
+    noRun: derived.max_length_m === null && a.max_length_basis !== undefined,
     look: look(worstStatus(a.checks.filter((k) => !TEST_CHECKS.has(k.id)).map((k) => k.status))),
   };
+}
+
+/** Why a circuit of the board has no longest run, one line each (the basis says "none: …"). */
+function noRunLines(circuits: readonly CircuitRecord[], byCircuit: Map<string, CircuitAssessment>) {
+  return circuits.flatMap((c) => {
+    const a = byCircuit.get(circuitKey(c.board, c.ref))!;
+    return a.derived.max_length_m === null && a.max_length_basis ? [{ ref: c.ref, why: a.max_length_basis.replace(/^none: /, '') }] : [];
+  });
 }
 
 export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
@@ -128,6 +138,7 @@ export function boardSchedules(project: Project, byCircuit: Map<string, CircuitA
       pfc_ka: b.pfc_ka ?? null,
       tree: treeView(b.id, assessment),
       circuits: circuits.map((c) => designRow(c, byCircuit.get(circuitKey(c.board, c.ref))!)),
+      noRun: noRunLines(circuits, byCircuit),
       results: circuits.map((c) => resultRow(c, byCircuit.get(circuitKey(c.board, c.ref))!, project.readings.get(circuitKey(c.board, c.ref)) ?? {}, notes)),
       footnotes: notes,
     };
