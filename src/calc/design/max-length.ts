@@ -6,7 +6,7 @@
 // short run can fail the adiabatic check on a large fault current), a grid from 0.5 m to 5 km is
 // walked up from the first passing length instead. Where no length passes, null, and `whyNone`
 // says which check no length meets and at what status (never a bare "none").
-import type { Check, CheckResult, CircuitContext } from '../types.js';
+import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { adiabatic } from '../checks/adiabatic.js';
 import { voltageDropCheck } from '../checks/voltage-drop.js';
@@ -72,10 +72,14 @@ export function runWords(run: LongestRun, at: AtLength, ownLengthM: number, chec
   return `${fmt(run.length_m)} m, set by ${run.limited_by.map(nameOf).join(' and ')}`;
 }
 
-export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): LongestRun {
+/** What counts as meeting a check: `pass` (the default), or for what would mend a failure, anything but `fail`. */
+export type Meets = (status: Status) => boolean;
+export const PASSES: Meets = (s) => s === 'pass';
+
+export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
   const passes = (l: number) => {
     const ctx = at(l);
-    return checks.every((c) => c(ctx).status === 'pass');
+    return checks.every((c) => meets(c(ctx).status));
   };
   const bracket = (): [number, number] | 'beyond' | null => {
     const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
@@ -107,6 +111,6 @@ export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Ch
     if (passes(m)) a = m; else b = m;
   }
   const past = at(b);
-  const limited = checks.map((c) => c(past)).filter((r) => r.status !== 'pass').map((r) => r.id);
+  const limited = checks.map((c) => c(past)).filter((r) => !meets(r.status)).map((r) => r.id);
   return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
 }
