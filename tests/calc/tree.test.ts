@@ -97,6 +97,48 @@ describe('two levels, worked by hand (tests/fixtures/tree-two-level)', () => {
   });
 });
 
+describe('the feeding circuit, judged as a distribution circuit', () => {
+  const twoBoards = (supply: Record<string, string>, feeder: Record<string, string> = {}): Project => {
+    const file = ProjectFileSchema.parse({
+      title: 't', client: { name: 'c' }, site: { address: 'a' }, installer: { firm: 'f' }, supply,
+      boards: [{ id: 'DB1' }, { id: 'DB2', fed_by: 'DB1/1' }],
+    });
+    const row = (n: number, c: Record<string, string>) => ({ ...CircuitSchema.parse({ kind: 'power', method: 'C', description: 'd', ...c }), row: n });
+    const circuits = [
+      row(2, { board: 'DB1', ref: '1', kind: 'other', ib_a: '50', device: 'fuse:gG', rating_a: '63', live_mm2: '16', cpc_mm2: '10', length_m: '40', ...feeder }),
+      row(3, { board: 'DB2', ref: '1', ib_a: '16', device: 'mcb:B', rating_a: '20', live_mm2: '2.5', cpc_mm2: '1.5', length_m: '25' }),
+      row(4, { board: 'DB2', ref: '2', ib_a: '6', device: 'mcb:B', rating_a: '10', live_mm2: '1.5', cpc_mm2: '1.5', length_m: '25', kind: 'lighting' }),
+    ];
+    return { name: 'p', file, circuits, readings: new Map(), rows: [], sessions: [], notes: null };
+  };
+  it('1 s on TT (IEC 60364-4-41, 411.3.2.4), and the time the job sets for it where it sets one', () => {
+    const tt = assess(twoBoards({ earthing: 'TT', ze_ohm: '20', pfc_ka: '0.5' }));
+    expect(circuit(tt, 'DB1/1').derived.required_disconnect_s).toBe(1);
+    const set = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '1.5' }, { disconnect_s: '0.4' }));
+    expect(circuit(set, 'DB1/1').derived.required_disconnect_s).toBe(0.4);
+  });
+  it('runs its own design checks as for any circuit', () => {
+    const a = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '1.5' }));
+    for (const id of ['overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity']) {
+      expect(check(a, 'DB1/1', id).status, id).not.toBe('n/a');
+    }
+    // overload: Ib 50 ≤ In 63 ≤ Iz 85 A (IEC 60364-5-52 Table B.52.2, method C, 16 mm², PVC, 2 loaded)
+    expect(check(a, 'DB1/1', 'overload').limit).toBe(85);
+  });
+  it('selectivity passes where the fault current at the fed board stays below where the bands meet: 230 / (230/500 + 2 × 40 × 1.15 mΩ) = 416.7 A < 450 A', () => {
+    // gG 63 A may melt within 0.1 s only from 450 A (IEC 60269-1 gate Imin(0.1 s)); mcb:B 20 A,
+    // the largest device on DB2, trips within 0.1 s from 5 In = 100 A (IEC 60898-1)
+    const upto = 230 / (230 / 500 + (2 * 40 * 1.15) / 1000);
+    expect(upto).toBeCloseTo(416.7, 1);
+    const a = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '0.5' }));
+    const k = check(a, 'DB1/1', 'selectivity');
+    expect(k.status).toBe('pass');
+    expect(k.value).toBe(417);
+    expect(k.basis).toContain('mcb:B 20 A (DB2/1, the largest device on DB2)');
+    expect(check(a, 'DB2/1', 'selectivity').status).toBe('n/a');
+  });
+});
+
 describe('three levels (tests/fixtures/tree-three-level)', () => {
   // DB1 → DB1/1 (16/10 mm², 40 m) → DB2 (Zdb measured 0.47 Ω) → DB2/2 (6/6 mm², 20 m, Ib 25 A) → DB3.
   const a = assessed('tests/fixtures/tree-three-level');
