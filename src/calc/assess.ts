@@ -133,7 +133,8 @@ export function assess(project: Project): Assessment {
     const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
     const run = longestRun((l) => atLength(strictCtx, l), circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
-    const runBasis = runWords(run, (l) => atLength(strictCtx, l), circuit.length_m);
+    const runBasis = runWords(run, (l) => atLength(strictCtx, l), circuit.length_m)
+      + (site.feeds ? ` (its own checks only: a longer run also raises Zdb and the drop at ${site.feeds.board}, whose circuits are not judged again here)` : '');
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
     return {

@@ -80,6 +80,7 @@ describe('two levels, worked by hand (tests/fixtures/tree-two-level)', () => {
     const byZs = ((230 * 0.95) / 320 - 0.35) / (feederR1R2 / 40); // 94.9 m
     expect(byZs).toBeGreaterThan(byDrop);
     expect(circuit(a, 'DB1/1').derived.max_length_m).toBe(Math.floor(byDrop * 10) / 10);
+    expect(circuit(a, 'DB1/1').max_length_basis).toBe('83.5 m, set by voltage drop from the origin (its own checks only: a longer run also raises Zdb and the drop at DB2, whose circuits are not judged again here)');
   });
   it('the sub-main is a distribution circuit: 5 s on TN (IEC 60364-4-41, 411.3.2.3)', () => {
     expect(circuit(a, 'DB1/1').derived.required_disconnect_s).toBe(5);
