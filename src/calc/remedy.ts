@@ -11,7 +11,7 @@ import { fmt } from '../model/units.js';
 import { CAPACITY_SIZES_MM2 } from '../reference/capacity.js';
 import type { DeviceCode } from '../reference/device-codes.js';
 import { sizesOf } from './design/conductor.js';
-import { boardShare, longestRun, PASSES, type Meets } from './design/max-length.js';
+import { boardShare, longestRun, metres, PASSES, type Meets } from './design/max-length.js';
 import type { Check, CircuitContext } from './types.js';
 
 /** The circuit as it would be with some fields changed. */
@@ -90,7 +90,7 @@ export function remedy(id: string, check: Check, ctx: CircuitContext, changed: C
     const options: string[] = [];
     if (BY_LENGTH.has(id)) {
       const run = longestRun(atLength, ctx.circuit.length_m, [check], meets);
-      if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${fmt(run.length_m)} m (now ${fmt(ctx.circuit.length_m)} m)`);
+      if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${metres(run.length_m)} (now ${fmt(ctx.circuit.length_m)} m)`);
     }
     const other = tried.find((k) => meets(check(changed(k.change)).status));
     if (other) options.push(other.words);

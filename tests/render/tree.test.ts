@@ -59,6 +59,17 @@ describe('the pack of a three-level installation (projects/heronsgate-pottery)',
     const byZs = ((230 * 0.95) / 400 - 0.38) / ((2 * 1.83 * HOT) / 1000);
     expect(numbers('DB2', '4').at(-1)).toBe(String(Math.floor(byZs * 10) / 10));
     expect(numbers('DB3', '2').at(-1)).toBe('none');
+  });
+  it('prints the longest run as found, to 0.1 m, never rounded up to three figures (tests/fixtures/pack-job: 119.1 m)', () => {
+    const p = loadJob('tests/fixtures/pack-job');
+    if (!p.ok) throw new Error('the fixture does not validate');
+    const found = p.assessment.circuits.find((c) => c.ref === '1')!.derived.max_length_m!;
+    expect(found).toBeGreaterThan(100); // three figures would round it
+    expect(found * 10 % 1).toBe(0);
+    const page = renderPack(p.project, p.assessment, { revisionLabel: 'DRAFT', draft: true, date: '2026-11-24' });
+    const at = page.indexOf('href="#circuit-DB-A-1"', page.indexOf('id="board-DB-A"'));
+    const cells = [...page.slice(at, page.indexOf('</tr>', at)).matchAll(/<td class="n">([^<]*)<\/td>/g)].map((m) => m[1]);
+    expect(cells.at(-1)).toBe(String(found));
     expect(boardDb3).toContain('2: voltage drop from the origin passes at no length from 0.5 m to 5 km (fail at 15 m: the drop from the origin to DB3 is already 2.99 % of the 3 % allowed)');
   });
 });

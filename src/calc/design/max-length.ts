@@ -31,6 +31,9 @@ export interface LongestRun {
   limited_by: string[];
 }
 
+/** A length found here, as found (to 0.1 m, rounded down): never rounded up by significant figures. */
+export const metres = (m: number): string => `${m} m`;
+
 /** The words a check goes by in the line that says why no length passes. */
 const NAMES: Readonly<Record<string, string>> = {
   'zs-design': 'design Zs', 'voltage-drop': 'voltage drop from the origin', adiabatic: 'the adiabatic check',
@@ -54,14 +57,14 @@ export function whyNone(at: AtLength, ownLengthM: number, checks: readonly Check
   const alone = checks.map((c) => ({ check: c, result: c(own), run: longestRun(at, ownLengthM, [c]) }));
   const never = alone.filter((a) => a.run.length_m === null);
   if (never.length === 0) {
-    const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : `${fmt(a.run.length_m!)} m`}`);
+    const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : metres(a.run.length_m!)}`);
     return `no one length meets them all (${each.join('; ')})`;
   }
   const culprits = never.map((a) => `${nameOf(a.result.id)} passes at no length from ${fmt(FROM_M)} m to ${fmt(TO_M / 1000)} km (${a.result.status} at ${fmt(ownLengthM)} m${boardShare(own, a.result)})`);
   const others = checks.filter((c) => !never.some((a) => a.check === c));
   if (others.length === 0) return culprits.join('; ');
   const rest = longestRun(at, ownLengthM, others);
-  const allow = rest.length_m === null ? '' : `; ${others.map((c) => nameOf(c(own).id)).join(' and ')} alone would allow ${rest.beyond ? 'beyond 5 km' : `up to ${fmt(rest.length_m)} m`}`;
+  const allow = rest.length_m === null ? '' : `; ${others.map((c) => nameOf(c(own).id)).join(' and ')} alone would allow ${rest.beyond ? 'beyond 5 km' : `up to ${metres(rest.length_m)}`}`;
   return `${culprits.join('; ')}${allow}`;
 }
 
@@ -69,7 +72,7 @@ export function whyNone(at: AtLength, ownLengthM: number, checks: readonly Check
 export function runWords(run: LongestRun, at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
   if (run.length_m === null) return `none: ${whyNone(at, ownLengthM, checks)}`;
   if (run.beyond) return `every length up to ${fmt(TO_M)} m meets ${checks.map((c) => nameOf(c(at(ownLengthM)).id)).join(', ')}`;
-  return `${fmt(run.length_m)} m, set by ${run.limited_by.map(nameOf).join(' and ')}`;
+  return `${metres(run.length_m)}, set by ${run.limited_by.map(nameOf).join(' and ')}`;
 }
 
 /** What counts as meeting a check: `pass` (the default), or for what would mend a failure, anything but `fail`. */
