@@ -4,6 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { loadJob } from '../../src/job.js';
 import { renderPack } from '../../src/render/pack.js';
+import { downTo3 } from '../../src/render/sections/schedules.js';
 
 const j = loadJob('projects/heronsgate-pottery');
 if (!j.ok) throw new Error('the demo job does not validate');
@@ -59,17 +60,22 @@ describe('the pack of a three-level installation (projects/heronsgate-pottery)',
     const byZs = ((230 * 0.95) / 400 - 0.38) / ((2 * 1.83 * HOT) / 1000);
     expect(numbers('DB2', '4').at(-1)).toBe(String(Math.floor(byZs * 10) / 10));
     expect(numbers('DB3', '2').at(-1)).toBe('none');
+    expect(boardDb3).toContain('longest run none: no run of any length passes (the appendix says why of both)');
+    // 2.26 + 0.73 = 2.99 % reaches DB3 (above); 3 % for lighting (IEC 60364-5-52 Table G.52.1)
+    const entry = text(between('id="circuit-DB3-2"', '</section>'));
+    expect(entry).toContain('Longest run none: voltage drop from the origin passes at no length from 0.5 m to 5 km (fail at 15 m: the drop from the origin to DB3 is already 2.99 % of the 3 % allowed)');
+    expect(entry).toContain('What would pass: no single change tried passes');
   });
-  it('prints the longest run as found, to 0.1 m, never rounded up to three figures (tests/fixtures/pack-job: 119.1 m)', () => {
-    const p = loadJob('tests/fixtures/pack-job');
-    if (!p.ok) throw new Error('the fixture does not validate');
-    const found = p.assessment.circuits.find((c) => c.ref === '1')!.derived.max_length_m!;
-    expect(found).toBeGreaterThan(100); // three figures would round it
-    expect(found * 10 % 1).toBe(0);
+  it('prints the longest run to three figures rounded down, never up (projects/tannery-row-refit DB1/3: 129.7 m → 129)', () => {
+    const p = loadJob('projects/tannery-row-refit');
+    if (!p.ok) throw new Error('the demo job does not validate');
+    const found = p.assessment.circuits.find((c) => c.board === 'DB1' && c.ref === '3')!.derived.max_length_m!;
+    expect(found).toBeGreaterThanOrEqual(100);
+    expect(Math.round(found)).toBeGreaterThan(Math.floor(found)); // rounded to nearest it would print more
     const page = renderPack(p.project, p.assessment, { revisionLabel: 'DRAFT', draft: true, date: '2026-11-24' });
-    const at = page.indexOf('href="#circuit-DB-A-1"', page.indexOf('id="board-DB-A"'));
+    const at = page.indexOf('href="#circuit-DB1-3"', page.indexOf('id="board-DB1"'));
     const cells = [...page.slice(at, page.indexOf('</tr>', at)).matchAll(/<td class="n">([^<]*)<\/td>/g)].map((m) => m[1]);
-    expect(cells.at(-1)).toBe(String(found));
-    expect(boardDb3).toContain('2: voltage drop from the origin passes at no length from 0.5 m to 5 km (fail at 15 m: the drop from the origin to DB3 is already 2.99 % of the 3 % allowed)');
+    expect(cells.at(-1)).toBe(String(Math.floor(found)));
+    expect([downTo3(37.9), downTo3(4999.9), downTo3(0.55)]).toEqual([37.9, 4990, 0.55]);
   });
 });

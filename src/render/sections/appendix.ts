@@ -37,6 +37,8 @@ export function appendixBoards(project: Project, assessment: Assessment, byCircu
         // the checks that do not apply, in one line: their labels (each says why in check --explain and data.json)
         notApplicable: a.checks.filter((k) => k.status === 'n/a').map((k) => checkLabel(k.id)).join(', ') || null,
         naLook: look('n/a'),
+        // no length passes: why (the schedule shows "none")
+        noRun: a.derived.max_length_m === null && a.max_length_basis ? plainWords(a.max_length_basis) : null,
         snippetSvg: circuitSnippet(snippet.request),
         snippetCaption: snippet.caption,
       };

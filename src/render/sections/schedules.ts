@@ -95,8 +95,16 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
   };
 }
 
+/** A length kept to three figures, rounded down (a longest run must never be shown longer than found). */
+export function downTo3(m: number): number {
+  if (m <= 0) return m;
+  const step = 10 ** (Math.floor(Math.log10(m)) - 2);
+  return Number((Math.floor(m / step + 1e-9) * step).toPrecision(3));
+}
+
 function designRow(c: CircuitRecord, a: CircuitAssessment) {
   const derived = Object.fromEntries(DERIVED_FIELDS.map((k) => [k, typeof a.derived[k] === 'number' ? a.derived[k] : null])) as Record<(typeof DERIVED_FIELDS)[number], number | null>;
+  if (derived.max_length_m !== null) derived.max_length_m = downTo3(derived.max_length_m);
   const ringWord = c.ring && !/\bring\b/i.test(c.description);
   return {
     ref: c.ref,
@@ -118,14 +126,6 @@ function designRow(c: CircuitRecord, a: CircuitAssessment) {
   };
 }
 
-/** Why a circuit of the board has no longest run, one line each (the basis says "none: …"). */
-function noRunLines(circuits: readonly CircuitRecord[], byCircuit: Map<string, CircuitAssessment>) {
-  return circuits.flatMap((c) => {
-    const a = byCircuit.get(circuitKey(c.board, c.ref))!;
-    return a.derived.max_length_m === null && a.max_length_basis ? [{ ref: c.ref, why: a.max_length_basis.replace(/^none: /, '') }] : [];
-  });
-}
-
 export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
   return project.file.boards.map((b) => {
     const notes: Footnote[] = [];
@@ -138,7 +138,7 @@ export function boardSchedules(project: Project, byCircuit: Map<string, CircuitA
       pfc_ka: b.pfc_ka ?? null,
       tree: treeView(b.id, assessment),
       circuits: circuits.map((c) => designRow(c, byCircuit.get(circuitKey(c.board, c.ref))!)),
-      noRun: noRunLines(circuits, byCircuit),
+      noRun: circuits.filter((c) => byCircuit.get(circuitKey(c.board, c.ref))!.derived.max_length_m === null),
       results: circuits.map((c) => resultRow(c, byCircuit.get(circuitKey(c.board, c.ref))!, project.readings.get(circuitKey(c.board, c.ref)) ?? {}, notes)),
       footnotes: notes,
     };
