@@ -18,7 +18,7 @@ import { originDrop } from './tree/origin.js';
 import { carry } from './tree/carry.js';
 import { fedBoards } from './tree/build.js';
 import { boardQuery, type BoardQuery } from './tree/query.js';
-import { longestRun } from './design/max-length.js';
+import { longestRun, runWords } from './design/max-length.js';
 import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
@@ -131,7 +131,10 @@ export function assess(project: Project): Assessment {
     const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
     // the longest run and what would pass are found under the rule set's own values
     const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
-    ctx.derived.max_length_m = longestRun((l) => atLength(strictCtx, l), circuit.length_m).length_m;
+    const run = longestRun((l) => atLength(strictCtx, l), circuit.length_m);
+    ctx.derived.max_length_m = run.length_m;
+    const runBasis = runWords(run, (l) => atLength(strictCtx, l), circuit.length_m)
+      + (site.feeds ? ` (its own checks only: a longer run also raises Zdb and the drop at ${site.feeds.board}, whose circuits are not judged again here)` : '');
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
     return {
@@ -139,6 +142,7 @@ export function assess(project: Project): Assessment {
       ref: circuit.ref,
       description: circuit.description,
       derived: ctx.derived,
+      max_length_basis: runBasis,
       checks: CHECKS.map(([id, check]): CheckResult => {
         const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
         const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, (l) => atLength(strictCtx, l)) : null;

@@ -2,14 +2,16 @@
 // pass, found by running the check on the changed circuit (never guessed): a shorter run (the
 // longest length that passes), the next conductor size up, a lower rating or another curve of the
 // same family, a separate or larger cpc, or — on a TT supply — an RCD giving fault protection.
-// One plain line; where no single change tried passes, it says so. Pure.
+// One plain line; where no single change tried passes, it says so. Where no change passes but one
+// ends the failure (the check would still want a maker's figure, say), that change is given and
+// the line says what the check would then be. Pure.
 import type { Circuit } from '../model/schema.js';
 import { ratingsMade } from '../model/device-rating.js';
 import { fmt } from '../model/units.js';
 import { CAPACITY_SIZES_MM2 } from '../reference/capacity.js';
 import type { DeviceCode } from '../reference/device-codes.js';
 import { sizesOf } from './design/conductor.js';
-import { longestRun } from './design/max-length.js';
+import { boardShare, longestRun, metres, PASSES, type Meets } from './design/max-length.js';
 import type { Check, CircuitContext } from './types.js';
 
 /** The circuit as it would be with some fields changed. */
@@ -68,27 +70,36 @@ function candidates(id: string, ctx: CircuitContext): Candidate[] {
     case 'voltage-drop': return liveUp(c);
     case 'zs-design':
     case 'disconnection': return [...sizesUp(c), ...softerCurve(c), ...lowerRatings(c), ...rcd(ctx)];
-    case 'adiabatic':
+    case 'adiabatic': return [...cpcUp(c), ...softerCurve(c), ...rcd(ctx)];
     case 'cpc-size': return [...cpcUp(c), ...softerCurve(c)];
     default: return [];
   }
 }
 
-/** The checks whose failure a change of length can cure. */
-const BY_LENGTH = new Set(['voltage-drop', 'zs-design', 'disconnection']);
+/** The checks whose failure a change of length can cure (a shorter run raises the smallest fault current). */
+const BY_LENGTH = new Set(['voltage-drop', 'zs-design', 'disconnection', 'adiabatic']);
+
+const ENDS_FAILURE: Meets = (s) => s !== 'fail';
 
 /** One plain line: what would make the failing check pass, or null where the check did not fail or is not a design check. */
 export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed, atLength: (lengthM: number) => CircuitContext): string | null {
   if (check(ctx).status !== 'fail') return null;
   const tried = candidates(id, ctx);
   if (tried.length === 0 && !BY_LENGTH.has(id)) return null;
-  const options: string[] = [];
-  if (BY_LENGTH.has(id)) {
-    const run = longestRun(atLength, ctx.circuit.length_m, [check]);
-    if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${fmt(run.length_m)} m (now ${fmt(ctx.circuit.length_m)} m)`);
-  }
-  const other = tried.find((k) => check(changed(k.change)).status === 'pass');
-  if (other) options.push(other.words);
-  if (options.length === 0) return `no single change tried passes (${BY_LENGTH.has(id) ? 'a shorter run, ' : ''}${tried.length ? 'the next sizes up, another curve or rating' : 'nothing else to try'}): the design needs another look`;
-  return `would pass with ${options.join(', or ')}`;
+  const found = (meets: Meets): string[] => {
+    const options: string[] = [];
+    if (BY_LENGTH.has(id)) {
+      const run = longestRun(atLength, ctx.circuit.length_m, [check], meets);
+      if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${metres(run.length_m)} (now ${fmt(ctx.circuit.length_m)} m)`);
+    }
+    const other = tried.find((k) => meets(check(changed(k.change)).status));
+    if (other) options.push(other.words);
+    return options;
+  };
+  const passing = found(PASSES);
+  if (passing.length > 0) return `would pass with ${passing.join(', or ')}`;
+  const mending = found(ENDS_FAILURE);
+  if (mending.length > 0) return `would no longer fail with ${mending.join(', or ')} (none of the changes tried makes it pass)`;
+  const share = boardShare(ctx, check(ctx));
+  return `no single change tried passes (${BY_LENGTH.has(id) ? 'a shorter run, ' : ''}${tried.length ? 'the next sizes up, another curve or rating' : 'nothing else to try'})${share || ': the design needs another look'}`;
 }

@@ -89,6 +89,8 @@ export interface CircuitAssessment {
   ref: string;
   description: string;
   derived: Derived;
+  /** what sets `derived.max_length_m` (the check that stops passing beyond it), or why there is none */
+  max_length_basis?: string;
   checks: CheckResult[];
   /** a circuit that feeds a board: the board, its largest device and the fault current there (for selectivity) */
   feeds?: { board: string; largest: { ref: string; code: DeviceCode; rating_a: number } | null; fault_current_a: number | null };

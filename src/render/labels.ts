@@ -237,3 +237,6 @@ export function plainWords(text: string): string {
     return known ? lower(known.label) : id;
   });
 }
+
+/** A phrase as a sentence of its own: its first letter a capital. */
+export const sentence = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);

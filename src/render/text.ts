@@ -2,7 +2,7 @@
 // worst status, the checks still open named) and then every open item in full; with `explain`,
 // the working of every check. Checks and fields by their labels; long text wrapped to the width.
 import type { Assessment, CheckResult, CircuitAssessment } from '../calc/types.js';
-import { checkLabel, plainWords } from './labels.js';
+import { checkLabel, plainWords, sentence } from './labels.js';
 import { OPEN, SEVERITY, STATUS_LOOK, worstStatus } from './status.js';
 import { historyLine } from './values.js';
 
@@ -49,7 +49,7 @@ function checkBlock(k: CheckResult, width: number, indent: number): string[] {
   const lines = wrap(plainWords(k.basis), width, `${pad}    `, head);
   const trace = historyLine(k);
   if (trace) lines.push(...wrap(`history: ${trace}`, width, `${pad}    `, `${pad}    `));
-  if (k.remedy) lines.push(...wrap(`would pass: ${plainWords(k.remedy)}`, width, `${pad}    `, `${pad}    `));
+  if (k.remedy) lines.push(...wrap(sentence(plainWords(k.remedy)), width, `${pad}    `, `${pad}    `));
   return lines;
 }
 

@@ -71,6 +71,16 @@ describe('two levels, worked by hand (tests/fixtures/tree-two-level)', () => {
     expect(byZs).toBeGreaterThan(byDrop);
     expect(circuit(a, 'DB2/1').derived.max_length_m).toBe(Math.floor(byDrop * 10) / 10);
     expect(check(a, 'DB2/1', 'voltage-drop').remedy).toBe('would pass with a run of at most 21.1 m (now 25 m), or 4 mm² live conductors (now 2.5 mm²)');
+    expect(circuit(a, 'DB2/1').max_length_basis).toBe('21.1 m, set by voltage drop from the origin');
+  });
+  it('the sub-main\'s own longest run: (5 − 0) % × 230 V / (2 × 1.376 mΩ/m × 50 A) = 83.5 m, well under where design Zs would stop it', () => {
+    const perMetre = (2 * 1.15 * HOT * 50) / 1000; // V/m, 16 mm² at 70 °C, Ib 50 A
+    const byDrop = (0.05 * 230) / perMetre; // 83.57 m
+    // gG 63 A at 5 s: Ia 320 A, the IEC 60269-1 gate Imax(5 s) (src/reference/fuses-iec-60269.ts, from memory)
+    const byZs = ((230 * 0.95) / 320 - 0.35) / (feederR1R2 / 40); // 94.9 m
+    expect(byZs).toBeGreaterThan(byDrop);
+    expect(circuit(a, 'DB1/1').derived.max_length_m).toBe(Math.floor(byDrop * 10) / 10);
+    expect(circuit(a, 'DB1/1').max_length_basis).toBe('83.5 m, set by voltage drop from the origin (its own checks only: a longer run also raises Zdb and the drop at DB2, whose circuits are not judged again here)');
   });
   it('the sub-main is a distribution circuit: 5 s on TN (IEC 60364-4-41, 411.3.2.3)', () => {
     expect(circuit(a, 'DB1/1').derived.required_disconnect_s).toBe(5);
@@ -84,6 +94,48 @@ describe('two levels, worked by hand (tests/fixtures/tree-two-level)', () => {
     expect(k.status).toBe('attention');
     expect(k.value).toBe(450);
     expect(k.basis).toContain('overlap from 450 A');
+    expect(check(a, 'DB2/1', 'selectivity').status).toBe('n/a');
+  });
+});
+
+describe('the feeding circuit, judged as a distribution circuit', () => {
+  const twoBoards = (supply: Record<string, string>, feeder: Record<string, string> = {}): Project => {
+    const file = ProjectFileSchema.parse({
+      title: 't', client: { name: 'c' }, site: { address: 'a' }, installer: { firm: 'f' }, supply,
+      boards: [{ id: 'DB1' }, { id: 'DB2', fed_by: 'DB1/1' }],
+    });
+    const row = (n: number, c: Record<string, string>) => ({ ...CircuitSchema.parse({ kind: 'power', method: 'C', description: 'd', ...c }), row: n });
+    const circuits = [
+      row(2, { board: 'DB1', ref: '1', kind: 'other', ib_a: '50', device: 'fuse:gG', rating_a: '63', live_mm2: '16', cpc_mm2: '10', length_m: '40', ...feeder }),
+      row(3, { board: 'DB2', ref: '1', ib_a: '16', device: 'mcb:B', rating_a: '20', live_mm2: '2.5', cpc_mm2: '1.5', length_m: '25' }),
+      row(4, { board: 'DB2', ref: '2', ib_a: '6', device: 'mcb:B', rating_a: '10', live_mm2: '1.5', cpc_mm2: '1.5', length_m: '25', kind: 'lighting' }),
+    ];
+    return { name: 'p', file, circuits, readings: new Map(), rows: [], sessions: [], notes: null };
+  };
+  it('1 s on TT (IEC 60364-4-41, 411.3.2.4), and the time the job sets for it where it sets one', () => {
+    const tt = assess(twoBoards({ earthing: 'TT', ze_ohm: '20', pfc_ka: '0.5' }));
+    expect(circuit(tt, 'DB1/1').derived.required_disconnect_s).toBe(1);
+    const set = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '1.5' }, { disconnect_s: '0.4' }));
+    expect(circuit(set, 'DB1/1').derived.required_disconnect_s).toBe(0.4);
+  });
+  it('runs its own design checks as for any circuit', () => {
+    const a = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '1.5' }));
+    for (const id of ['overload', 'voltage-drop', 'zs-design', 'disconnection', 'adiabatic', 'breaking-capacity']) {
+      expect(check(a, 'DB1/1', id).status, id).not.toBe('n/a');
+    }
+    // overload: Ib 50 ≤ In 63 ≤ Iz 85 A (IEC 60364-5-52 Table B.52.2, method C, 16 mm², PVC, 2 loaded)
+    expect(check(a, 'DB1/1', 'overload').limit).toBe(85);
+  });
+  it('selectivity passes where the fault current at the fed board stays below where the bands meet: 230 / (230/500 + 2 × 40 × 1.15 mΩ) = 416.7 A < 450 A', () => {
+    // gG 63 A may melt within 0.1 s only from 450 A (IEC 60269-1 gate Imin(0.1 s)); mcb:B 20 A,
+    // the largest device on DB2, trips within 0.1 s from 5 In = 100 A (IEC 60898-1)
+    const upto = 230 / (230 / 500 + (2 * 40 * 1.15) / 1000);
+    expect(upto).toBeCloseTo(416.7, 1);
+    const a = assess(twoBoards({ earthing: 'TN-C-S', ze_ohm: '0.35', pfc_ka: '0.5' }));
+    const k = check(a, 'DB1/1', 'selectivity');
+    expect(k.status).toBe('pass');
+    expect(k.value).toBe(417);
+    expect(k.basis).toContain('mcb:B 20 A (DB2/1, the largest device on DB2)');
     expect(check(a, 'DB2/1', 'selectivity').status).toBe('n/a');
   });
 });
@@ -113,6 +165,19 @@ describe('three levels (tests/fixtures/tree-three-level)', () => {
     expect(k.limit).toBe(3);
     expect(k.status).toBe('fail');
     expect(k.basis).toMatch(/DB1\/1 2\.39 % \+ DB2\/2 1\.6 % \+ this circuit 0\.847 %/);
+  });
+  it('has no longest run for DB3/1 and says why: 2.393 + 1.602 = 3.995 % reaches DB3 before its own cable, over the 3 % for lighting', () => {
+    const toBoard = [(2 * 40 * 1.15 * HOT * 50) / 1000, (2 * 20 * 3.08 * HOT * 25) / 1000].map((v) => v / 230 * 100);
+    expect(toBoard[0]! + toBoard[1]!).toBeGreaterThan(3); // IEC 60364-5-52 Table G.52.1, lighting
+    // design Zs alone: (230 × 0.95 / 30 A − 0.6400 Ω) / (2 × 18.1 mΩ/m × 1.1965) = 153.4 m
+    // (type B 6 A trips within 0.1 s at 5 In = 30 A, IEC 60898-1)
+    const byZs = ((230 * 0.95) / 30 - zdb3) / ((2 * 18.1 * HOT) / 1000);
+    expect(byZs).toBeCloseTo(153.4, 1);
+    const c = circuit(a, 'DB3/1');
+    expect(c.derived.max_length_m).toBeNull();
+    expect(c.max_length_basis).toContain('voltage drop from the origin passes at no length from 0.5 m to 5 km (fail at 15 m: the drop from the origin to DB3 is already 4 % of the 3 % allowed)');
+    expect(c.max_length_basis).toContain(`design Zs alone would allow up to ${Math.floor(byZs * 10) / 10} m`);
+    expect(check(a, 'DB3/1', 'voltage-drop').remedy).toMatch(/no single change tried passes .*: the drop from the origin to DB3 is already 4 % of the 3 % allowed$/);
   });
   it('lists DB3 first in project.yaml yet orders the boards from the origin down', () => {
     expect(a.boards!.map((b) => b.board)).toEqual(['DB1', 'DB2', 'DB3']);

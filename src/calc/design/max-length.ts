@@ -4,8 +4,10 @@
 // from the circuit's own length, steps of 50 % up (while it passes) or down (until it passes)
 // bracket the boundary, and bisection finds it. Where the steps down find no passing length (a
 // short run can fail the adiabatic check on a large fault current), a grid from 0.5 m to 5 km is
-// walked up from the first passing length instead. Where no length passes, null.
-import type { Check, CircuitContext } from '../types.js';
+// walked up from the first passing length instead. Where no length passes, null, and `whyNone`
+// says which check no length meets and at what status (never a bare "none").
+import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
+import { fmt } from '../../model/units.js';
 import { adiabatic } from '../checks/adiabatic.js';
 import { voltageDropCheck } from '../checks/voltage-drop.js';
 import { zsDesign } from '../checks/zs-design.js';
@@ -25,12 +27,62 @@ export interface LongestRun {
   length_m: number | null;
   /** true where even 5 km passes */
   beyond: boolean;
+  /** the checks that stop passing just beyond the length found (empty when null or beyond) */
+  limited_by: string[];
 }
 
-export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): LongestRun {
+/** A length found here, as found (to 0.1 m, rounded down): never rounded up by significant figures. */
+export const metres = (m: number): string => `${m} m`;
+
+/** The words a check goes by in the line that says why no length passes. */
+const NAMES: Readonly<Record<string, string>> = {
+  'zs-design': 'design Zs', 'voltage-drop': 'voltage drop from the origin', adiabatic: 'the adiabatic check',
+};
+const nameOf = (id: string) => NAMES[id] ?? id;
+
+/** Where the drop up to the board alone leaves no room: "the drop from the origin to DB3 is already 2.99 % of the 3 % allowed". */
+export function boardShare(ctx: CircuitContext, r: CheckResult): string {
+  const at = ctx.site?.source;
+  if (r.id !== 'voltage-drop' || !at || at.vd.percent === null || at.vd.legs.length === 0 || r.limit === null) return '';
+  return `: the drop from the origin to ${at.board} is already ${fmt(at.vd.percent)} % of the ${fmt(r.limit)} % allowed`;
+}
+
+/**
+ * One line saying why no length from 0.5 m to 5 km meets the checks together: each check that no
+ * length meets on its own, with its status at the circuit's own length, and how far the others
+ * would allow; or, where each alone is met somewhere, that no one length meets them all.
+ */
+export function whyNone(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
+  const own = at(ownLengthM);
+  const alone = checks.map((c) => ({ check: c, result: c(own), run: longestRun(at, ownLengthM, [c]) }));
+  const never = alone.filter((a) => a.run.length_m === null);
+  if (never.length === 0) {
+    const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : metres(a.run.length_m!)}`);
+    return `no one length meets them all (${each.join('; ')})`;
+  }
+  const culprits = never.map((a) => `${nameOf(a.result.id)} passes at no length from ${fmt(FROM_M)} m to ${fmt(TO_M / 1000)} km (${a.result.status} at ${fmt(ownLengthM)} m${boardShare(own, a.result)})`);
+  const others = checks.filter((c) => !never.some((a) => a.check === c));
+  if (others.length === 0) return culprits.join('; ');
+  const rest = longestRun(at, ownLengthM, others);
+  const allow = rest.length_m === null ? '' : `; ${others.map((c) => nameOf(c(own).id)).join(' and ')} alone would allow ${rest.beyond ? 'beyond 5 km' : `up to ${metres(rest.length_m)}`}`;
+  return `${culprits.join('; ')}${allow}`;
+}
+
+/** One line for the schedule: what sets the longest run, or why there is none. */
+export function runWords(run: LongestRun, at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
+  if (run.length_m === null) return `none: ${whyNone(at, ownLengthM, checks)}`;
+  if (run.beyond) return `every length up to ${fmt(TO_M)} m meets ${checks.map((c) => nameOf(c(at(ownLengthM)).id)).join(', ')}`;
+  return `${metres(run.length_m)}, set by ${run.limited_by.map(nameOf).join(' and ')}`;
+}
+
+/** What counts as meeting a check: `pass` (the default), or for what would mend a failure, anything but `fail`. */
+export type Meets = (status: Status) => boolean;
+export const PASSES: Meets = (s) => s === 'pass';
+
+export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
   const passes = (l: number) => {
     const ctx = at(l);
-    return checks.every((c) => c(ctx).status === 'pass');
+    return checks.every((c) => meets(c(ctx).status));
   };
   const bracket = (): [number, number] | 'beyond' | null => {
     const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
@@ -54,12 +106,14 @@ export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Ch
     return last === null ? null : 'beyond';
   };
   const found = bracket();
-  if (found === null) return { length_m: null, beyond: false };
-  if (found === 'beyond') return { length_m: TO_M, beyond: true };
+  if (found === null) return { length_m: null, beyond: false, limited_by: [] };
+  if (found === 'beyond') return { length_m: TO_M, beyond: true, limited_by: [] };
   let [a, b] = found;
   for (let n = 0; n < BISECTIONS; n++) {
     const m = (a + b) / 2;
     if (passes(m)) a = m; else b = m;
   }
-  return { length_m: Math.floor(a * 10) / 10, beyond: false };
+  const past = at(b);
+  const limited = checks.map((c) => c(past)).filter((r) => !meets(r.status)).map((r) => r.id);
+  return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
 }

@@ -4,7 +4,7 @@
 import type { Project } from '../../model/validate.js';
 import type { Assessment, CheckResult, CircuitAssessment } from '../../calc/types.js';
 import { circuitKey } from '../../model/readings.js';
-import { checkLabel, plainWords } from '../labels.js';
+import { checkLabel, plainWords, sentence } from '../labels.js';
 import { look, worstStatus } from '../status.js';
 import { comparison, historyLine } from '../values.js';
 import { circuitSnippet, snippetRequest } from '../snippets.js';
@@ -16,7 +16,7 @@ export function checkLine(k: CheckResult) {
   // a passing check without a pair of numbers gives its finding, the basis before its first colon
   const line = full ? plainWords(k.basis) : (comparison(k) ?? plainWords(k.basis).split(': ')[0]!);
   const history = historyLine(k);
-  return { id: k.id, label: checkLabel(k.id), line, full, date: k.date ?? null, history: history === null ? null : plainWords(history), remedy: k.remedy ? plainWords(k.remedy) : null, look: look(k.status) };
+  return { id: k.id, label: checkLabel(k.id), line, full, date: k.date ?? null, history: history === null ? null : plainWords(history), remedy: k.remedy ? sentence(plainWords(k.remedy)) : null, look: look(k.status) };
 }
 
 export function appendixBoards(project: Project, assessment: Assessment, byCircuit: Map<string, CircuitAssessment>) {
@@ -38,6 +38,8 @@ export function appendixBoards(project: Project, assessment: Assessment, byCircu
         // the checks that do not apply, in one line: their labels (each says why in check --explain and data.json)
         notApplicable: a.checks.filter((k) => k.status === 'n/a').map((k) => checkLabel(k.id)).join(', ') || null,
         naLook: look('n/a'),
+        // no length passes: why (the schedule shows "none")
+        noRun: a.derived.max_length_m === null && a.max_length_basis ? plainWords(a.max_length_basis) : null,
         snippetSvg: circuitSnippet(snippet.request),
         snippetCaption: snippet.caption,
       };

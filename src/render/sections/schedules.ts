@@ -95,8 +95,16 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
   };
 }
 
+/** A length kept to three figures, rounded down (a longest run must never be shown longer than found). */
+export function downTo3(m: number): number {
+  if (m <= 0) return m;
+  const step = 10 ** (Math.floor(Math.log10(m)) - 2);
+  return Number((Math.floor(m / step + 1e-9) * step).toPrecision(3));
+}
+
 function designRow(c: CircuitRecord, a: CircuitAssessment) {
   const derived = Object.fromEntries(DERIVED_FIELDS.map((k) => [k, typeof a.derived[k] === 'number' ? a.derived[k] : null])) as Record<(typeof DERIVED_FIELDS)[number], number | null>;
+  if (derived.max_length_m !== null) derived.max_length_m = downTo3(derived.max_length_m);
   const ringWord = c.ring && !/\bring\b/i.test(c.description);
   return {
     ref: c.ref,
@@ -112,6 +120,8 @@ function designRow(c: CircuitRecord, a: CircuitAssessment) {
     ring: ringWord,
     rcd: c.rcd_ma === undefined ? null : `${fmt(c.rcd_ma)} mA${c.rcd_type ? ` type ${c.rcd_type}` : ''}`,
     derived,
+    /** no length passes: the cell says "none" and the key below the table says why */
+    noRun: derived.max_length_m === null && a.max_length_basis !== undefined,
     look: look(worstStatus(a.checks.filter((k) => !TEST_CHECKS.has(k.id)).map((k) => k.status))),
   };
 }
@@ -128,6 +138,7 @@ export function boardSchedules(project: Project, byCircuit: Map<string, CircuitA
       pfc_ka: b.pfc_ka ?? null,
       tree: treeView(b.id, assessment),
       circuits: circuits.map((c) => designRow(c, byCircuit.get(circuitKey(c.board, c.ref))!)),
+      noRun: circuits.filter((c) => byCircuit.get(circuitKey(c.board, c.ref))!.derived.max_length_m === null),
       results: circuits.map((c) => resultRow(c, byCircuit.get(circuitKey(c.board, c.ref))!, project.readings.get(circuitKey(c.board, c.ref)) ?? {}, notes)),
       footnotes: notes,
     };
