@@ -85,18 +85,47 @@ export interface Printer {
   close(): Promise<void>;
 }
 
+/** The Chromium that every printer of this process shares, when `shareOneBrowser` asked for one (else each printer starts its own). */
+let shared: { chromium: string; browser: Promise<PrintBrowser> | null } | null = null;
+
+/**
+ * Keep one Chromium for every printer of this process until the returned close() (the test
+ * suite's in-process runs of the command line, which need not start a browser each): a printer
+ * then closes its pages but leaves the browser running.
+ */
+export function shareOneBrowser(): { close(): Promise<void> } {
+  shared = { chromium: '', browser: null };
+  return {
+    close: async () => {
+      const kept = shared?.browser;
+      shared = null;
+      if (kept) await (await kept).close();
+    },
+  };
+}
+
+function browserFor(chromium: string): Promise<PrintBrowser> {
+  if (!shared) return launchBrowser(chromium);
+  const kept = shared.browser;
+  if (kept && shared.chromium === chromium) {
+    return kept.then((b) => (b.browser.connected ? b : ((shared!.browser = launchBrowser(chromium)))));
+  }
+  shared.chromium = chromium;
+  return (shared.browser = launchBrowser(chromium));
+}
+
 export function lazyPrinter(chromium: string, poolSize?: number): Printer {
   clearStaleProfiles(); // what runs killed outright left, printing or not this time
-  let started: Promise<{ browser: PrintBrowser; pool: PrintPool }> | null = null;
-  const start = () => (started ??= launchBrowser(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize) })));
+  let started: Promise<{ browser: PrintBrowser; pool: PrintPool; own: boolean }> | null = null;
+  const start = () => (started ??= browserFor(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize), own: shared === null })));
   return {
     print: async (htmlPath, opts) => (await start()).pool.print(htmlPath, opts),
     room: async () => { if (started) await (await started).pool.room(); },
     close: async () => {
       if (!started) return;
-      const { browser, pool } = await started;
+      const { browser, pool, own } = await started;
       await pool.close();
-      await browser.close();
+      if (own) await browser.close();
     },
   };
 }
