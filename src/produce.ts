@@ -38,10 +38,17 @@ export function styleOf(
   project: Project, jobDir: string, given: { theme?: string | null; paper?: Paper },
   engineFor: (theme: string | null) => Engine, treeHash: (dir: string) => string = cachedTreeHash(),
 ): PackStyle {
-  const theme = given.theme ?? (project.file.theme ? resolve(jobDir, project.file.theme) : null);
+  const theme = given.theme ?? ownTheme(project, jobDir);
   const paper = given.paper ?? project.file.paper ?? 'A4';
-  const parts = [treeHash(BUILTIN_TEMPLATES), theme ? treeHash(theme) : 'no theme', paper];
-  return { engine: engineFor(theme), paper, templatesHash: sha256(parts.join('\n')) };
+  return { engine: engineFor(theme), paper, templatesHash: templatesHash(theme, paper, treeHash) };
+}
+
+/** The theme folder a job names itself (absolute), or null. */
+export const ownTheme = (project: Project, jobDir: string): string | null => (project.file.theme ? resolve(jobDir, project.file.theme) : null);
+
+/** One hash of the built-in templates, the theme's files and the paper. */
+export function templatesHash(theme: string | null, paper: string, treeHash: (dir: string) => string): string {
+  return sha256([treeHash(BUILTIN_TEMPLATES), theme ? treeHash(theme) : 'no theme', paper].join('\n'));
 }
 
 /** The hash of a folder's files, each folder read once per run. */

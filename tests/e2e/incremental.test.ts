@@ -1,6 +1,6 @@
 // Incremental builds and the archive site, with the compiled CLI.
 import { afterAll, describe, expect, it } from 'vitest';
-import { existsSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { run } from '../helpers/cli.js';
 import { copyFixture, edit, removeTree, scratch } from '../helpers/archive.js';
@@ -67,6 +67,56 @@ describe('packsmith build, incrementally', () => {
     await build();
     html = readFileSync(join(out, 'archive-job/draft/pack.html'), 'utf8');
     expect(html).toMatch(/<td>DB1<\/td><td>2<\/td><td>Measured Zs<\/td><td>0\.64 Ω on 2026-10-09<\/td><td>0\.66 Ω on 2026-10-09<\/td>/);
+  });
+});
+
+describe('what a rebuild looks at', () => {
+  const mtime = (p: string) => statSync(p).mtimeMs;
+
+  it('finds a changed reading by its content, though its size and time are as before', async () => {
+    const file = join(f, 'readings/2026-10-09.csv');
+    const when = new Date('2026-10-12T12:00:00Z');
+    utimesSync(file, when, when);
+    const was = statSync(file);
+    edit(f, 'readings/2026-10-09.csv', 'ok,0.56,', 'ok,0.57,'); // same length
+    utimesSync(file, when, when);
+    expect([statSync(file).size, statSync(file).mtimeMs]).toEqual([was.size, was.mtimeMs]);
+    expect(rebuilt(await build())).toEqual(['failing-job']);
+  });
+
+  it('rewrites the page of the job it rebuilt and the index, not the pages of the others', async () => {
+    const page = (j: string) => join(out, j, 'index.html');
+    const before = [mtime(page('archive-job'))];
+    edit(f, 'readings/2026-10-09.csv', 'ok,0.57,', 'ok,0.58,');
+    expect(rebuilt(await build())).toEqual(['failing-job']);
+    expect(mtime(page('archive-job'))).toBe(before[0]); // a page is written only where it differs
+    expect(readFileSync(join(out, 'index.html'), 'utf8').split('<tr data-date=')).toHaveLength(3);
+  });
+
+  it('does not re-hash an issued revision whose files keep their size and time; verify does, and finds the altered byte', async () => {
+    const pdf = join(root, 'archive/archive-job/rev-1/pack.pdf');
+    const when = new Date('2026-10-12T12:00:00Z'); // a time that survives setting it exactly
+    chmodSync(pdf, 0o644);
+    utimesSync(pdf, when, when);
+    await build(); // the build hashes the file again, its time being new, and remembers it
+    const was = statSync(pdf);
+    const bytes = readFileSync(pdf);
+    bytes[bytes.length >> 1] ^= 1;
+    writeFileSync(pdf, bytes);
+    utimesSync(pdf, when, when);
+    await build('--force');
+    expect(readFileSync(join(out, 'archive-job/index.html'), 'utf8')).not.toMatch(/finding/); // the build took the hash it knew
+    const v = await run(['verify', join(root, 'projects')]);
+    expect(v.code).toBe(1);
+    expect(v.stdout).toMatch(/rev-1\/pack\.pdf: altered/);
+    utimesSync(pdf, was.atime, new Date(was.mtimeMs + 1000)); // a file touched since: hashed again, and the site says so
+    await build();
+    expect(readFileSync(join(out, 'archive-job/index.html'), 'utf8')).toMatch(/1 finding\(s\): run packsmith verify/);
+    bytes[bytes.length >> 1] ^= 1;
+    writeFileSync(pdf, bytes);
+    utimesSync(pdf, when, when);
+    await build();
+    expect(readFileSync(join(out, 'archive-job/index.html'), 'utf8')).not.toMatch(/finding/);
   });
 });
 
