@@ -36,6 +36,8 @@ export interface BuildOptions {
   today?: string;
   /** rebuild every job, changed or not */
   force?: boolean;
+  /** write the archive site (default true; a shard of a build leaves it to `build --site`) */
+  site?: boolean;
   /** where messages go (stderr by default) */
   log?: (line: string) => void;
   // ---- theme and paper (a job's own `theme` / `paper` in project.yaml applies where these are not given)
@@ -219,7 +221,8 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     await Promise.allSettled(printing);
     await printer?.close();
   }
-  writeSite(out, sources, look.inspect);
+  if (opts.site !== false) writeSite(out, sources, look.inspect);
+  else outDir(out);
   look.known.save();
   return result;
 }

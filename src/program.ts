@@ -46,6 +46,8 @@ function program(argv: string[], done: (code: Exit) => void): Command {
     .option('--theme <DIR>', 'a firm\'s folder of templates, partials, stylesheet and logo, for every job')
     .option('--paper <size>', 'A4 or Letter')
     .option('--archive <DIR>', 'where the jobs\' issued revisions are (default archive/ beside the job folders\' folder, or packsmith.yaml\'s archive:)')
+    .option('--shard <K/N>', 'build only shard K of N (the jobs split by a hash of their folder name) and no site, for N runners in parallel')
+    .option('--site', 'join the shards\' output folders given as arguments into --out and write the site there (no job is built)')
     .action(run(async () => (await import('./commands/build.js')).buildCommand));
 
   p.command('device').description('a protective device\'s characteristic: operating time at a current, Ia and max Zs')
