@@ -21,7 +21,7 @@ import { writeReplacing } from './archive/files.js';
 import { writeSite, type SiteSource } from './archive/site.js';
 import { jobArchiveSettings, type ArchiveSettings } from './archive/location.js';
 import { jobFolders } from './load/jobs.js';
-import { cachedTreeHash, lazyPrinter, ownTheme, packFiles, packPdf, styleOf, templatesHash, type PackStyle } from './produce.js';
+import { cachedTreeHash, lazyPrinter, ownTheme, packFiles, packPdf, styleOf, templatesHash, type PackStyle, type Printer } from './produce.js';
 import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
 import { claimOut, outDir } from './archive/out.js';
@@ -48,6 +48,8 @@ export interface BuildOptions {
   // ---- printing
   /** pages printing at once (default: one per core) */
   poolSize?: number;
+  /** the printer (default: one Chromium, started when a pack needs printing; the bench gives its own) */
+  printer?: Printer | null;
   /** where the progress line goes (default stderr; shown only on a terminal, for more than a few jobs) */
   progress?: ProgressStream;
 }
@@ -131,7 +133,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
   const chromium = findChromium();
-  const printer = chromium ? lazyPrinter(chromium, opts.poolSize) : null;
+  const printer = opts.printer !== undefined ? opts.printer : chromium ? lazyPrinter(chromium, opts.poolSize) : null;
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
   const names = new Map<string, string>();
