@@ -3,7 +3,7 @@
 // latest revision is skipped (--force builds it anyway). One Chromium serves the whole build,
 // started only when something needs printing; without one, the HTML is still written.
 import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { loadJob } from './job.js';
 import { formatError, type LocatedError } from './load/raw.js';
 import { engineCache } from './render/engine.js';
@@ -12,14 +12,16 @@ import { progressLine, type ProgressStream } from './print/progress.js';
 import type { Paper } from './model/schema.js';
 import { packData, dataBytes } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
-import { inspectJob, type IssuedRevision } from './archive/verify.js';
+import { inspectJob, type IssuedRevision, type JobArchive } from './archive/verify.js';
+import { knownHashes } from './archive/known.js';
+import { jobInputFiles } from './load/job.js';
 import { changesSince } from './archive/previous.js';
-import { readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint } from './archive/fingerprint.js';
+import { outputStats, readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { writeSite, type SiteSource } from './archive/site.js';
-import { jobArchiveSettings } from './archive/location.js';
+import { jobArchiveSettings, type ArchiveSettings } from './archive/location.js';
 import { jobFolders } from './load/jobs.js';
-import { cachedTreeHash, lazyPrinter, packFiles, packPdf, styleOf, type PackStyle } from './produce.js';
+import { cachedTreeHash, lazyPrinter, ownTheme, packFiles, packPdf, styleOf, templatesHash, type PackStyle, type Printer } from './produce.js';
 import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
 import { claimOut, outDir } from './archive/out.js';
@@ -34,6 +36,8 @@ export interface BuildOptions {
   today?: string;
   /** rebuild every job, changed or not */
   force?: boolean;
+  /** write the archive site (default true; a shard of a build leaves it to `build --site`) */
+  site?: boolean;
   /** where messages go (stderr by default) */
   log?: (line: string) => void;
   // ---- theme and paper (a job's own `theme` / `paper` in project.yaml applies where these are not given)
@@ -44,6 +48,8 @@ export interface BuildOptions {
   // ---- printing
   /** pages printing at once (default: one per core) */
   poolSize?: number;
+  /** the printer (default: one Chromium, started when a pack needs printing; the bench gives its own) */
+  printer?: Printer | null;
   /** where the progress line goes (default stderr; shown only on a terminal, for more than a few jobs) */
   progress?: ProgressStream;
 }
@@ -77,6 +83,49 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
   return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
 }
 
+/** Memoised per build: the archive settings of a job folder's holder, and what the archive holds for a job. */
+function lookups(override: string | null, out: string) {
+  const settings = new Map<string, ArchiveSettings>();
+  const archives = new Map<string, JobArchive>();
+  const known = knownHashes(out);
+  return {
+    known,
+    settingsOf: (dir: string): ArchiveSettings => {
+      const holder = resolve(dir, '..');
+      let s = settings.get(holder);
+      if (!s) settings.set(holder, (s = jobArchiveSettings(dir, override)));
+      return s;
+    },
+    inspect: (archive: string, job: string): JobArchive => {
+      const key = `${archive}\0${job}`;
+      let a = archives.get(key);
+      if (!a) archives.set(key, (a = inspectJob(archive, job, { known })));
+      return a;
+    },
+  };
+}
+
+/**
+ * The quick look at a job: when its input files (by content hash), its own theme and paper, its
+ * archive and latest revision are those its draft's stamp records, and the draft's files are as
+ * written, the draft is up to date and the job is not read, checked or rendered again.
+ */
+function unchanged(dir: string, target: string, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string): Stamp | null {
+  const stamp = readStamp(target);
+  const source = stamp?.source;
+  if (!stamp || !source || source.dir !== resolve(dir) || stamp.archive !== archive) return null;
+  const files = jobInputFiles(dir);
+  if (!files) return null;
+  const want: Fingerprint = {
+    packsmith: VERSION,
+    input_hash: combinedHash(fileHashes(files)),
+    templates_hash: templatesHash(given.theme ?? source.theme, given.paper ?? source.paper ?? 'A4', treeHash),
+    base_revision: latest,
+    pdf: printing,
+  };
+  return upToDate(target, stamp, want) ? stamp : null;
+}
+
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
   const out = claimOut(opts.out);
@@ -84,23 +133,33 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const treeHash = cachedTreeHash();
   const result: BuildResult = { built: [], skipped: [], invalid: [], pdfSkipped: false };
   const chromium = findChromium();
-  const printer = chromium ? lazyPrinter(chromium, opts.poolSize) : null;
+  const printer = opts.printer !== undefined ? opts.printer : chromium ? lazyPrinter(chromium, opts.poolSize) : null;
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
   const names = new Map<string, string>();
   const sources: SiteSource[] = [];
+  const look = lookups(opts.archive ?? null, out);
   try {
     for (const dir of opts.jobs) {
-      const job = loadJob(dir, opts.today ? { today: opts.today } : {});
-      const twin = names.get(job.raw.name);
+      if (printing.length > 0) await new Promise((r) => setImmediate(r)); // let the printer start while unchanged jobs are looked at
+      const name = basename(resolve(dir));
+      const twin = names.get(name);
       if (twin !== undefined) {
-        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${job.raw.name}/` };
-        result.invalid.push({ job: job.raw.name, errors: [e] });
+        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
+        result.invalid.push({ job: name, errors: [e] });
         log(formatError(e));
         continue;
       }
-      names.set(job.raw.name, dir);
-      const where = jobArchiveSettings(dir, opts.archive ?? null);
+      names.set(name, dir);
+      const where = look.settingsOf(dir);
+      const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
+      if (!opts.force && where.errors.length === 0 && unchanged(dir, join(out, name, 'draft'), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
+        sources.push({ job: name, archive: where.archive });
+        result.skipped.push({ job: name, dir: join(out, name, 'draft') });
+        progress.tick(name);
+        continue;
+      }
+      const job = loadJob(dir, opts.today ? { today: opts.today } : {});
       if (!job.ok || where.errors.length > 0) {
         const errors = [...where.errors, ...(job.ok ? [] : job.errors)];
         result.invalid.push({ job: job.raw.name, errors });
@@ -111,7 +170,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const { project, assessment } = job;
       const target = join(out, project.name, 'draft');
       sources.push({ job: project.name, archive: where.archive });
-      const latest = inspectJob(where.archive, project.name).revisions.at(-1) ?? null;
+      const latest = latestOf();
       const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
       const fingerprint: Fingerprint = {
         packsmith: VERSION,
@@ -134,7 +193,11 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
       result.built.push(built);
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({ format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address, date, summary: assessment.summary, outputs }));
+      const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
+      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({
+        format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
+        date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
+      }));
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
@@ -160,6 +223,8 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     await Promise.allSettled(printing);
     await printer?.close();
   }
-  writeSite(out, sources);
+  if (opts.site !== false) writeSite(out, sources, look.inspect);
+  else outDir(out);
+  look.known.save();
   return result;
 }

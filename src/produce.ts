@@ -38,10 +38,17 @@ export function styleOf(
   project: Project, jobDir: string, given: { theme?: string | null; paper?: Paper },
   engineFor: (theme: string | null) => Engine, treeHash: (dir: string) => string = cachedTreeHash(),
 ): PackStyle {
-  const theme = given.theme ?? (project.file.theme ? resolve(jobDir, project.file.theme) : null);
+  const theme = given.theme ?? ownTheme(project, jobDir);
   const paper = given.paper ?? project.file.paper ?? 'A4';
-  const parts = [treeHash(BUILTIN_TEMPLATES), theme ? treeHash(theme) : 'no theme', paper];
-  return { engine: engineFor(theme), paper, templatesHash: sha256(parts.join('\n')) };
+  return { engine: engineFor(theme), paper, templatesHash: templatesHash(theme, paper, treeHash) };
+}
+
+/** The theme folder a job names itself (absolute), or null. */
+export const ownTheme = (project: Project, jobDir: string): string | null => (project.file.theme ? resolve(jobDir, project.file.theme) : null);
+
+/** One hash of the built-in templates, the theme's files and the paper. */
+export function templatesHash(theme: string | null, paper: string, treeHash: (dir: string) => string): string {
+  return sha256([treeHash(BUILTIN_TEMPLATES), theme ? treeHash(theme) : 'no theme', paper].join('\n'));
 }
 
 /** The hash of a folder's files, each folder read once per run. */
@@ -85,18 +92,47 @@ export interface Printer {
   close(): Promise<void>;
 }
 
+/** The Chromium that every printer of this process shares, when `shareOneBrowser` asked for one (else each printer starts its own). */
+let shared: { chromium: string; browser: Promise<PrintBrowser> | null } | null = null;
+
+/**
+ * Keep one Chromium for every printer of this process until the returned close() (the test
+ * suite's in-process runs of the command line, which need not start a browser each): a printer
+ * then closes its pages but leaves the browser running.
+ */
+export function shareOneBrowser(): { close(): Promise<void> } {
+  shared = { chromium: '', browser: null };
+  return {
+    close: async () => {
+      const kept = shared?.browser;
+      shared = null;
+      if (kept) await (await kept).close();
+    },
+  };
+}
+
+function browserFor(chromium: string): Promise<PrintBrowser> {
+  if (!shared) return launchBrowser(chromium);
+  const kept = shared.browser;
+  if (kept && shared.chromium === chromium) {
+    return kept.then((b) => (b.browser.connected ? b : ((shared!.browser = launchBrowser(chromium)))));
+  }
+  shared.chromium = chromium;
+  return (shared.browser = launchBrowser(chromium));
+}
+
 export function lazyPrinter(chromium: string, poolSize?: number): Printer {
   clearStaleProfiles(); // what runs killed outright left, printing or not this time
-  let started: Promise<{ browser: PrintBrowser; pool: PrintPool }> | null = null;
-  const start = () => (started ??= launchBrowser(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize) })));
+  let started: Promise<{ browser: PrintBrowser; pool: PrintPool; own: boolean }> | null = null;
+  const start = () => (started ??= browserFor(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize), own: shared === null })));
   return {
     print: async (htmlPath, opts) => (await start()).pool.print(htmlPath, opts),
     room: async () => { if (started) await (await started).pool.room(); },
     close: async () => {
       if (!started) return;
-      const { browser, pool } = await started;
+      const { browser, pool, own } = await started;
       await pool.close();
-      await browser.close();
+      if (own) await browser.close();
     },
   };
 }

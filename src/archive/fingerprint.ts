@@ -1,7 +1,7 @@
 // What a draft was built from (draft/build.json): packsmith's version, the input hash, the
 // templates, the revision its changes section compares with, and the hashes of what was written.
 // A build whose fingerprint matches, with its files intact, need not run again.
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { z } from 'zod';
 import { sha256 } from './hash.js';
@@ -33,6 +33,10 @@ const StampSchema = z.object({
   date: z.string(),
   summary: SummarySchema,
   outputs: z.record(z.string(), z.string()),
+  /** each output's size and modification time when written: an unchanged draft is known by these, without re-hashing it */
+  output_stats: z.record(z.string(), z.tuple([z.number(), z.number()])).optional(),
+  /** the job folder (absolute) and its own theme (absolute) and paper, so a build can tell an unchanged job without reading it */
+  source: z.object({ dir: z.string(), theme: z.string().nullable(), paper: z.string().nullable() }).optional(),
 });
 export type Stamp = z.output<typeof StampSchema>;
 
@@ -46,7 +50,7 @@ export function readStamp(draftDir: string): Stamp | null {
 
 export const stampBytes = (s: Stamp): string => `${JSON.stringify(s, null, 2)}\n`;
 
-/** The draft in `draftDir` was made from `want` and its files are as written. A PDF-less draft is stale once Chromium can print. */
+/** The draft in `draftDir` was made from `want` and its files are as written (same size and time as written, or where the stamp has no times, same hash). A PDF-less draft is stale once Chromium can print. */
 export function upToDate(draftDir: string, stamp: Stamp | null, want: Fingerprint): boolean {
   if (!stamp) return false;
   const have = stamp.fingerprint;
@@ -55,6 +59,20 @@ export function upToDate(draftDir: string, stamp: Stamp | null, want: Fingerprin
   if (!same) return false;
   return Object.entries(stamp.outputs).every(([name, hash]) => {
     const path = join(draftDir, name);
-    return existsSync(path) && sha256(readFileSync(path)) === hash;
+    if (!existsSync(path)) return false;
+    const was = stamp.output_stats?.[name];
+    if (was) {
+      const st = statSync(path);
+      return st.size === was[0] && st.mtimeMs === was[1];
+    }
+    return sha256(readFileSync(path)) === hash;
   });
+}
+
+/** The size and modification time of each output in `draftDir`, for the stamp. */
+export function outputStats(draftDir: string, names: string[]): Record<string, [number, number]> {
+  return Object.fromEntries(names.map((n) => {
+    const st = statSync(join(draftDir, n));
+    return [n, [st.size, st.mtimeMs]];
+  }));
 }

@@ -3,13 +3,13 @@
 // Plain static pages with relative links: they work from file:// and any web server, no script.
 // The revisions stay in the archive folder (kept with the jobs); the site, in out/, links them.
 import { createHash } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { outDir } from './out.js';
 import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
 import { overallStatus, STATUS_LOOK } from '../render/status.js';
-import { archiveJobs, inspectJob } from './verify.js';
+import { archiveJobs, inspectJob, type JobArchive } from './verify.js';
 import { readStamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
@@ -65,15 +65,18 @@ export interface SiteSource {
   archive: string;
 }
 
+/** What an archive holds for a job (the build passes its own, which remembers what it looked at). */
+export type Inspect = (archive: string, job: string) => Pick<JobArchive, 'revisions' | 'findings'>;
+
 /** Links from out/<job>/ to a file of the job's archive (relative, so the site works from disk). */
 const linkTo = (out: string, job: string, archive: string, file: string): string =>
   relative(join(out, job), join(archive, job, file)).split('\\').join('/');
 
 /** What the archive holds for one job (its manifests) and its draft in `out` (its build.json). Links are relative to out/<job>/. */
-export function siteJob(out: string, job: string, archiveDir: string | null = null): SiteJob | null {
+export function siteJob(out: string, job: string, archiveDir: string | null = null, inspect: Inspect = inspectJob): SiteJob | null {
   const stamp = readStamp(join(out, job, 'draft'));
   const where = archiveDir ?? stamp?.archive ?? null;
-  const archive = where ? inspectJob(where, job) : { revisions: [], findings: [] };
+  const archive = where ? inspect(where, job) : { revisions: [], findings: [] };
   if (archive.revisions.length === 0 && !stamp) return null;
   const revisions = archive.revisions.map((r) => ({
     name: `Revision ${r.number}`,
@@ -209,7 +212,7 @@ export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
  * Write the site in `out`: every job with a draft there (its build.json names its archive), every
  * job of `sources`, and every other job of their archive folders.
  */
-export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
+export function writeSite(out: string, sources: SiteSource[] = [], inspect: Inspect = inspectJob): SiteJob[] {
   outDir(out);
   const where = new Map<string, string | null>();
   for (const name of readdirSync(out, { withFileTypes: true })) {
@@ -217,10 +220,14 @@ export function writeSite(out: string, sources: SiteSource[] = []): SiteJob[] {
   }
   for (const a of new Set(sources.map((s) => s.archive))) for (const j of archiveJobs(a)) where.set(j, a);
   for (const s of sources) where.set(s.job, s.archive);
-  const jobs = [...where].map(([j, a]) => siteJob(out, j, a)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) {
-    writeReplacing(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
-  }
-  writeReplacing(join(out, 'index.html'), renderIndex(jobs));
+  const jobs = [...where].map(([j, a]) => siteJob(out, j, a, inspect)).filter((j): j is SiteJob => j !== null);
+  for (const j of jobs) writeChanged(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
+  writeChanged(join(out, 'index.html'), renderIndex(jobs));
   return jobs;
+}
+
+/** Write a page of the site only where it differs from what is there: a build that changed one job rewrites that job's page and the index. */
+function writeChanged(path: string, text: string): void {
+  if (existsSync(path) && readFileSync(path, 'utf8') === text) return;
+  writeReplacing(path, text);
 }

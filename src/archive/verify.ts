@@ -10,6 +10,7 @@ import { revisionDirName } from './revisions.js';
 import { sha256 } from './hash.js';
 import { isWorkingName } from './files.js';
 import { checkSignature, SIGNATURE_FILE, type SignatureCheck } from './sign.js';
+import type { KnownHashes } from './known.js';
 
 export interface Finding {
   /** relative to the archive folder, e.g. "harbour-lane/rev-2/pack.pdf" (or to the job folders' folder for revisions.yaml) */
@@ -39,6 +40,8 @@ export interface JobArchive {
 export interface InspectOptions {
   /** the firm's public key: the latest revision must carry a signature it checks (which covers the earlier ones through the chain), and every signature must check; null: signatures are read, not checked */
   publicKey?: KeyObject | null;
+  /** the build's memory of files' hashes by size and time (verify leaves it out and re-hashes every file) */
+  known?: KnownHashes | null;
 }
 
 const REV_DIR = /^rev-([1-9]\d*)$/;
@@ -85,6 +88,7 @@ function inspectRevision(jobOut: string, job: string, n: number, findings: Findi
     return null;
   }
   const m = parsed.manifest;
+  const manifestSha = sha256(text);
   if (m.job !== job || m.revision.number !== n) {
     findings.push({ path: at('manifest.json'), problem: `describes ${m.job} revision ${m.revision.number}, but stands in ${job}/${name}` });
   }
@@ -97,7 +101,8 @@ function inspectRevision(jobOut: string, job: string, n: number, findings: Findi
       continue;
     }
     if (!plain(f)) continue; // already a finding
-    const got = sha256(readFileSync(join(dir, f)));
+    const compute = () => sha256(readFileSync(join(dir, f)));
+    const got = opts.known ? opts.known.hash(dir, manifestSha, f, kinds.get(f)!, compute) : compute();
     if (got !== want) findings.push({ path: at(f), problem: `altered: SHA-256 is ${got}, the manifest says ${want}` });
   }
   for (const f of entries) {
@@ -109,7 +114,7 @@ function inspectRevision(jobOut: string, job: string, n: number, findings: Findi
     if (signature.status === 'invalid') findings.push({ path: at(SIGNATURE_FILE), problem: signature.why });
     if (signature.status === 'other-key') findings.push({ path: at(SIGNATURE_FILE), problem: `signed with the key ${signature.key}, not the firm's key` });
   }
-  return { number: n, dir, manifest: m, manifestSha: sha256(text), signature };
+  return { number: n, dir, manifest: m, manifestSha, signature };
 }
 
 /** One job's revisions in the archive folder `archive`. */

@@ -32,7 +32,8 @@ const q = (s: string): string => JSON.stringify(s);
 
 export interface Generated { root: string; jobs: string[]; circuits: number }
 
-export function generateArchive(root: string, count: number, seed = 7): Generated {
+/** `count` jobs under `root`; `perJob` fixes each job's number of circuits (default 10–40). */
+export function generateArchive(root: string, count: number, seed = 7, perJob?: number): Generated {
   const rnd = random(seed);
   const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rnd() * xs.length)]!;
   const int = (lo: number, hi: number) => lo + Math.floor(rnd() * (hi - lo + 1));
@@ -56,7 +57,7 @@ export function generateArchive(root: string, count: number, seed = 7): Generate
       ...boards.map((b) => `  - { id: ${b}, location: ${q(pick(ROOMS))} }`),
       '',
     ].join('\n'));
-    const n = int(10, 40);
+    const n = perJob ?? int(10, 40);
     circuits += n;
     const circuitRows = ['board,ref,description,kind,ib_a,device,rating_a,live_mm2,cpc_mm2,length_m,method,rcd_ma,rcd_type,ring'];
     const readingRows = ['board,ref,r1r2_ohm,ir_ll_mohm,ir_le_mohm,ir_test_v,polarity,zs_ohm,rcd_1x_ms,rcd_5x_ms,rcd_button,tested_by'];

@@ -1,9 +1,11 @@
 // `npm run bench`: build a generated archive (200 jobs of 10–40 circuits by default) and print,
 // side by side from one run: the HTML stage in circuits/s; the PDF stage per pack against bare
 // Chromium printing the same HTML files with the same page.pdf options (the ratio); a full build;
-// a rebuild after one reading of one job changed; and peak memory.
+// a rebuild after one re-test in archives of 200 and 1,000 jobs; a 2,000-circuit job's print time,
+// pages and peak memory; `check`'s time from the shell; the preview refresh; and peak memory.
+// `--quick` prints 10 packs in the PDF stage and leaves out the preview (under two minutes).
 //
-//   npm run bench [-- --jobs N] [--keep]
+//   npm run bench [-- --jobs N] [--quick] [--keep]
 import { mkdtempSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -20,8 +22,10 @@ import { createPrintPool, defaultPoolSize } from '../print/pool.js';
 import { generateArchive } from './generate.js';
 import { sampleTree } from './memory.js';
 import { describeTimes, previewRefresh } from './serve.js';
+import { checkStart, largeJob, rebuildAfterRetest, retest } from './scale.js';
 
-const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' } } });
+const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' }, quick: { type: 'boolean' } } });
+const quick = values.quick === true;
 const count = Number(values.jobs);
 if (!Number.isInteger(count) || count < 1) throw new Error(`--jobs ${values.jobs}: expected a whole number of jobs`);
 
@@ -56,6 +60,8 @@ async function main() {
   }
   const htmlS = seconds(t);
   say(`HTML stage ${htmlS.toFixed(2)} s`);
+  if (quick) packs.splice(10); // the PDF stage and the full build on 10 packs
+  const printedJobs = archive.jobs.slice(0, packs.length);
 
   // ---- PDF stage, bare Chromium: same files, same page.pdf options, same number at once, a page each
   const bare = await puppeteer.launch({ executablePath: chromium, headless: true, args: ['--no-sandbox', `--user-data-dir=${join(root, 'bare-profile')}`] });
@@ -97,39 +103,45 @@ async function main() {
   const out = join(root, 'out');
   const quiet = { isTTY: false, write: () => true };
   t = now();
-  const full = await build({ jobs: archive.jobs, out, progress: quiet, log: say });
+  const full = await build({ jobs: printedJobs, out, progress: quiet, log: say });
   const fullS = seconds(t);
   say(`full build ${fullS.toFixed(2)} s`);
-  const changed = join(archive.jobs[Math.floor(archive.jobs.length / 2)]!, 'readings/2026-01-16.csv');
-  const lines = readFileSync(changed, 'utf8').split('\n');
-  const cells = lines[1]!.split(',');
-  cells[7] = cells[7] === 'not-tested' ? '0.50' : (Number(cells[7]) + 0.01).toFixed(2); // zs_ohm of the first circuit
-  lines[1] = cells.join(',');
-  writeFileSync(changed, lines.join('\n'));
+  retest(printedJobs[Math.floor(printedJobs.length / 2)]!);
   t = now();
-  const again = await build({ jobs: archive.jobs, out, progress: quiet, log: say });
+  const again = await build({ jobs: printedJobs, out, progress: quiet, log: say });
   const rebuildS = seconds(t);
   const printedAgain = again.built.filter((b) => b.pdf !== null).length;
+  // ---- at scale: rebuilds in archives of 200 and 1,000 jobs, a large job, check's start
+  const rebuilds = [];
+  for (const size of [200, 1000]) {
+    rebuilds.push({ size, ...(await rebuildAfterRetest(root, size)) });
+    say(`rebuild at ${size} jobs ${rebuilds.at(-1)!.seconds.toFixed(2)} s`);
+  }
+  const large = await largeJob(root, 2000);
+  say(`2,000-circuit job ${large.seconds.toFixed(1)} s, exit ${large.code}`);
+  const checks = checkStart(root);
   // ---- packsmith serve: a save of the biggest job until the open preview shows it
-  const preview = await previewRefresh(archive.jobs, chromium);
-  say(`preview refresh ${describeTimes(preview.saveToPage)}`);
+  const preview = quick ? null : await previewRefresh(archive.jobs, chromium);
+  if (preview) say(`preview refresh ${describeTimes(preview.saveToPage)}`);
   const nodeMb = process.resourceUsage().maxRSS / 1024;
-
   const n = packs.length;
   const rows: [string, string, string, string][] = [
-    ['HTML stage (load, check, render, write)', `${Math.round(archive.circuits / htmlS)} circuits/s`, '', `${(htmlS / n * 1000).toFixed(1)} ms per pack`],
+    ['HTML stage (load, check, render, write)', `${Math.round(archive.circuits / htmlS)} circuits/s`, '', `${(htmlS / archive.jobs.length * 1000).toFixed(1)} ms per pack`],
     ['PDF stage, wall time per pack', `${(oursS / n).toFixed(3)} s`, `${(bareS / n).toFixed(3)} s`, `ratio ${(oursS / bareS).toFixed(2)}`],
     ['PDF stage, all packs', `${oursS.toFixed(1)} s`, `${bareS.toFixed(1)} s`, `${width} pages at once`],
     ['full build (HTML + PDF + index)', `${fullS.toFixed(1)} s`, '', `${full.built.length} packs`],
     ['rebuild after one changed reading', `${rebuildS.toFixed(1)} s`, '', `${printedAgain} of ${n} packs printed again; ratio to full ${(rebuildS / fullS).toFixed(2)}`],
-    [`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, ${preview.saveToPage.length} saves; of which render ${describeTimes(preview.render)}`],
+    ...rebuilds.map((r): [string, string, string, string] => [`rebuild after one re-test, ${r.size} jobs`, `${r.seconds.toFixed(2)} s`, '', `${r.printed} pack printed; the drafts laid down first in ${r.setup.toFixed(0)} s (blank PDFs)`]),
+    ['2,000-circuit job, build from the shell', large.code === 0 ? `${large.seconds.toFixed(1)} s` : `failed (exit ${large.code})`, '', `${large.pages ?? 'no'} pages, peak memory ${large.peakMb.toFixed(0)} MB (packsmith + Chromium)${large.code === 0 ? '' : `; ${large.error}`}`],
+    ['check of a 40-circuit job, from the shell', `${(median(checks) * 1000).toFixed(0)} ms`, '', `median of ${checks.length}, max ${(Math.max(...checks) * 1000).toFixed(0)} ms`],
+    ...(preview ? [[`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, ${preview.saveToPage.length} saves; of which render ${describeTimes(preview.render)}`] as [string, string, string, string]] : []),
     ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
     ['peak memory, node (whole bench)', `${nodeMb.toFixed(0)} MB`, '', ''],
   ];
-  const w = [38, 16, 16, 0];
+  const w = [42, 16, 16, 0];
   const line = (r: string[]) => r.map((c, i) => (w[i] ? c.padEnd(w[i]!) : c)).join('  ').trimEnd();
   process.stdout.write([
-    `packsmith bench: ${n} generated jobs, ${archive.circuits} circuits (${(archive.circuits / n).toFixed(1)} per job), ${availableParallelism()} cores, Chromium ${(await chromiumVersion(chromium))}`,
+    `packsmith bench${quick ? ' --quick' : ''}: ${archive.jobs.length} generated jobs (${n} printed), ${archive.circuits} circuits (${(archive.circuits / archive.jobs.length).toFixed(1)} per job), ${availableParallelism()} cores, Chromium ${(await chromiumVersion(chromium))}`,
     line(['', 'packsmith', 'bare Chromium', '']),
     ...rows.map(line),
     '',
@@ -137,6 +149,8 @@ async function main() {
   if (!values.keep) rmSync(root, { recursive: true, force: true });
   else say(`kept ${root}`);
 }
+
+const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 
 async function chromiumVersion(path: string): Promise<string> {
   const b = await puppeteer.launch({ executablePath: path, headless: true, args: ['--no-sandbox'] });

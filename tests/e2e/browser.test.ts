@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Page } from 'puppeteer-core';
-import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
+import { run, NO_ARCHIVE } from '../helpers/cli.js';
 import { againstStored, difference } from '../helpers/screenshot.js';
 import { defaultJobs } from '../../src/build.js';
 import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
@@ -27,7 +27,7 @@ describe('the built site in Chromium', () => {
   const jobs = [...defaultJobs(), 'tests/fixtures/pack-job'];
 
   beforeAll(async () => {
-    const r = packsmith(['build', ...jobs, '--out', out, ...NO_ARCHIVE]);
+    const r = await run(['build', ...jobs, '--out', out, ...NO_ARCHIVE]);
     if (r.code !== 0) throw new Error(r.stderr);
     const chromium = findChromium();
     if (!chromium) throw new Error('no Chromium: run scripts/install-deps.sh (or set PACKSMITH_CHROME)');
@@ -81,7 +81,7 @@ describe('the built site in Chromium', () => {
     expect(seen.size).toBeGreaterThanOrEqual(jobs.length + 1);
   });
 
-  it('makes no request that leaves the machine', () => {
+  it('makes no request that leaves the machine', async () => {
     expect(requests.length).toBeGreaterThan(0);
     expect(requests.filter((u) => !u.startsWith('file:') && !u.startsWith('data:'))).toEqual([]);
   });

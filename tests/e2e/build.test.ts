@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
+import { run, NO_ARCHIVE } from '../helpers/cli.js';
 import { pdfInfo, pdfText } from '../helpers/pdf.js';
 import { sha } from '../helpers/archive.js';
 import { readJob } from '../../src/load/job.js';
@@ -13,14 +13,14 @@ const DEMO = 'projects/tannery-row-refit';
 
 describe('packsmith build (demo job)', () => {
   const out = mkdtempSync(join(tmpdir(), 'packsmith-e2e-'));
-  let run: ReturnType<typeof packsmith>;
-  beforeAll(() => {
-    run = packsmith(['build', DEMO, '--out', out, ...NO_ARCHIVE]);
+  let built: Awaited<ReturnType<typeof run>>;
+  beforeAll(async () => {
+    built = await run(['build', DEMO, '--out', out, ...NO_ARCHIVE]);
   });
 
-  it('exits 0 and writes HTML, PDF and the site index', () => {
-    expect(run.stderr).toBe('');
-    expect(run.code).toBe(0);
+  it('exits 0 and writes HTML, PDF and the site index', async () => {
+    expect(built.stderr).toBe('');
+    expect(built.code).toBe(0);
     for (const f of ['tannery-row-refit/draft/pack.html', 'tannery-row-refit/draft/pack.pdf', 'index.html']) {
       expect(existsSync(join(out, f))).toBe(true);
     }
@@ -39,9 +39,9 @@ describe('packsmith build (demo job)', () => {
     });
   });
 
-  it('gives the same SHA-256 for pack.html and pack.pdf when built again into another folder', () => {
+  it('gives the same SHA-256 for pack.html and pack.pdf when built again into another folder', async () => {
     const again = mkdtempSync(join(tmpdir(), 'packsmith-e2e-again-'));
-    expect(packsmith(['build', DEMO, '--out', again, ...NO_ARCHIVE]).code).toBe(0);
+    expect((await run(['build', DEMO, '--out', again, ...NO_ARCHIVE])).code).toBe(0);
     for (const f of ['pack.html', 'pack.pdf']) {
       expect(sha(join(again, 'tannery-row-refit/draft', f))).toBe(sha(join(out, 'tannery-row-refit/draft', f)));
     }
@@ -56,9 +56,9 @@ describe('packsmith build (demo job)', () => {
     expect(JSON.parse(attachments['data.json']!.toString())).toMatchObject({ job: 'tannery-row-refit', revision: null });
   });
 
-  it('writes the HTML and says how to get PDFs when no Chromium is found', () => {
+  it('writes the HTML and says how to get PDFs when no Chromium is found', async () => {
     const bare = mkdtempSync(join(tmpdir(), 'packsmith-nochrome-'));
-    const r = packsmith(['build', DEMO, '--out', bare, ...NO_ARCHIVE], { PACKSMITH_CHROME: '/nonexistent/chromium' });
+    const r = await run(['build', DEMO, '--out', bare, ...NO_ARCHIVE], { PACKSMITH_CHROME: '/nonexistent/chromium' });
     expect(r.code).toBe(0);
     expect(existsSync(join(bare, 'tannery-row-refit/draft/pack.html'))).toBe(true);
     expect(existsSync(join(bare, 'tannery-row-refit/draft/pack.pdf'))).toBe(false);
@@ -67,22 +67,22 @@ describe('packsmith build (demo job)', () => {
 });
 
 describe('packsmith check', () => {
-  it('prints every error of a broken job as file:row:column: message and exits 2', () => {
-    const r = packsmith(['check', 'tests/fixtures/broken-job']);
+  it('prints every error of a broken job as file:row:column: message and exits 2', async () => {
+    const r = await run(['check', 'tests/fixtures/broken-job']);
     expect(r.code).toBe(2);
     const lines = r.stderr.trim().split('\n');
     const located = lines.filter((l) => /^[\w./-]+:\d+:\d+: /.test(l));
     expect(located.length).toBeGreaterThanOrEqual(17);
     expect(r.stderr).not.toMatch(/\n\s+at /); // no stack trace
   });
-  it('gives the errors in the JSON too', () => {
-    const r = packsmith(['check', 'tests/fixtures/broken-job', '--json']);
+  it('gives the errors in the JSON too', async () => {
+    const r = await run(['check', 'tests/fixtures/broken-job', '--json']);
     expect(r.code).toBe(2);
     const json = JSON.parse(r.stdout) as { errors: { file: string; row: number; column: number; message: string }[] };
     expect(json.errors[0]).toMatchObject({ file: 'project.yaml', row: 7, column: 13 });
   });
-  it('exits 1 on the demo (open items) with the JSON of CONTRACT.md', () => {
-    const r = packsmith(['check', DEMO, '--json']);
+  it('exits 1 on the demo (open items) with the JSON of CONTRACT.md', async () => {
+    const r = await run(['check', DEMO, '--json']);
     expect(r.code).toBe(1);
     const json = JSON.parse(r.stdout) as { job: string; rules: Record<string, unknown>; circuits: { derived: Record<string, unknown>; checks: { id: string; status: string }[] }[]; summary: Record<string, number> };
     expect(json.job).toBe('tannery-row-refit');
@@ -91,8 +91,8 @@ describe('packsmith check', () => {
     const total = json.circuits.reduce((n, c) => n + c.checks.length, 0);
     expect(Object.values(json.summary).reduce((a, b) => a + b, 0)).toBe(total);
   });
-  it('refuses an unknown option plainly', () => {
-    const r = packsmith(['check', DEMO, '--jsn']);
+  it('refuses an unknown option plainly', async () => {
+    const r = await run(['check', DEMO, '--jsn']);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/^packsmith: /);
   });

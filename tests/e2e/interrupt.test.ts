@@ -12,7 +12,7 @@ import { beforeAll, afterAll, describe, expect, it } from 'vitest';
 import { cpSync, existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
-import { packsmith, startPacksmith } from '../helpers/cli.js';
+import { packsmith, run, startPacksmith } from '../helpers/cli.js';
 import { copyFixture, edit, folderHashes, removeTree, scratch } from '../helpers/archive.js';
 import { ISSUE_STEPS, type IssueStep } from '../../src/archive/steps.js';
 import { audit } from '../../src/archive/audit.js';
@@ -64,9 +64,9 @@ function expectRecoverable(root: string, step: IssueStep | null): void {
   if (step) expect(numbers).toEqual(committedBy(step) ? [1, 2] : [1]);
 }
 
-beforeAll(() => {
+beforeAll(async () => {
   copyFixture(JOB, base);
-  expect(packsmith(['issue', jobDir(base), '--by', 'T. Marwood', '--date', '2026-10-10', '--accept-open-items', '--out', join(base, 'out')]).code).toBe(0);
+  expect((await run(['issue', jobDir(base), '--by', 'T. Marwood', '--date', '2026-10-10', '--accept-open-items', '--out', join(base, 'out')])).code).toBe(0);
   edit(jobDir(base), 'readings/2026-10-09.csv', 'ok,1.08,', 'ok,1.12,');
   rev1 = folderHashes(join(jobArchive(base), 'rev-1'));
 }, 120_000);
@@ -77,49 +77,49 @@ describe('an issue stopped at every named step: the state a kill there leaves', 
   beforeAll(async () => {
     const root = place('interrupt-steps');
     cpSync(base, root, { recursive: true });
-    const run = startPacksmith(issueArgs(root), { PACKSMITH_STOP_AT: ISSUE_STEPS.join(',') });
+    const issuing = startPacksmith(issueArgs(root), { PACKSMITH_STOP_AT: ISSUE_STEPS.join(',') });
     const t0 = performance.now();
     let copying = 0;
     for (const step of ISSUE_STEPS) {
-      await run.said(`stopped at ${step}`);
-      await run.stopped();
+      await issuing.said(`stopped at ${step}`);
+      await issuing.stopped();
       const c0 = performance.now();
       const snapshot = place(`interrupt-${step}`);
       cpSync(root, snapshot, { recursive: true });
       at.set(step, snapshot);
       copying += performance.now() - c0;
-      run.child.kill('SIGCONT');
+      issuing.child.kill('SIGCONT');
     }
-    const end = await run.exit;
+    const end = await issuing.exit;
     expect(end.code).toBe(0);
     runMs = performance.now() - t0 - copying;
   }, 180_000);
 
-  it.each(ISSUE_STEPS)('%s: verify finds at most the unrecorded revision, and nothing partial is visible', (step) => {
+  it.each(ISSUE_STEPS)('%s: verify finds at most the unrecorded revision, and nothing partial is visible', async (step) => {
     expectRecoverable(at.get(step)!, step);
   });
 
-  it('the next issue clears what a run stopped before renaming left, and issues Revision 2', () => {
+  it('the next issue clears what a run stopped before renaming left, and issues Revision 2', async () => {
     const root = at.get('sealed')!;
     expect(readdirSync(jobArchive(root)).some(isWorkingName)).toBe(true);
-    const r = packsmith(issueArgs(root));
+    const r = await run(issueArgs(root));
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('issued Revision 2');
     expect(readdirSync(jobArchive(root)).some(isWorkingName)).toBe(false);
-    expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
+    expect((await run(['verify', join(root, 'projects')])).code).toBe(0);
   }, 240_000);
 
-  it('the next issue records a revision that a run stopped before recording left out of revisions.yaml', () => {
+  it('the next issue records a revision that a run stopped before recording left out of revisions.yaml', async () => {
     const root = at.get('committed')!;
     expect(recorded(root)).toEqual([1]);
-    expect(packsmith(['verify', join(root, 'projects')]).code).toBe(1);
-    const r = packsmith(issueArgs(root));
+    expect((await run(['verify', join(root, 'projects')])).code).toBe(1);
+    const r = await run(issueArgs(root));
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/revision 2 restored from its manifest/);
     expect(r.stderr).toMatch(/nothing changed since Revision 2/);
     expect(recorded(root)).toEqual([1, 2]);
     expect(existsSync(join(jobArchive(root), 'rev-3'))).toBe(false);
-    expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
+    expect((await run(['verify', join(root, 'projects')])).code).toBe(0);
   }, 240_000);
 });
 
@@ -138,22 +138,22 @@ describe(`an issue killed outright (${KILLS} random moments and three named step
     for (let tries = 0, frac = c.at; tries < 4 && !killed; tries++, frac /= 2) {
       removeTree(root);
       cpSync(base, root, { recursive: true });
-      const run = startPacksmith(issueArgs(root), c.step ? { PACKSMITH_STOP_AT: c.step } : {});
-      if (c.step) await run.said(`stopped at ${c.step}`);
+      const issuing = startPacksmith(issueArgs(root), c.step ? { PACKSMITH_STOP_AT: c.step } : {});
+      if (c.step) await issuing.said(`stopped at ${c.step}`);
       else await sleep(runMs * frac);
-      run.child.kill('SIGKILL');
-      const end = await run.exit;
+      issuing.child.kill('SIGKILL');
+      const end = await issuing.exit;
       killed = end.signal === 'SIGKILL';
-      if (killed && c.step === 'printed') expect(profiles().some((p) => p.startsWith(`${run.child.pid}-`))).toBe(true);
+      if (killed && c.step === 'printed') expect(profiles().some((p) => p.startsWith(`${issuing.child.pid}-`))).toBe(true);
       if (killed) {
         expectRecoverable(root, c.step);
         // the next run recovers (every kill of the campaign; in the suite, the kill while Chromium was up)
         if (!CAMPAIGN && c.step !== 'printed') continue;
-        const next = packsmith(issueArgs(root));
+        const next = packsmith(issueArgs(root)); // a process of its own, as after a real kill: it clears the killed run's profile
         expect([0, 1]).toContain(next.code);
         if (next.code === 1) expect(next.stderr).toMatch(/nothing changed since Revision 2/);
-        expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
-        expect(profiles().some((p) => p.startsWith(`${run.child.pid}-`))).toBe(false); // the next run removed the killed run's profile
+        expect((await run(['verify', join(root, 'projects')])).code).toBe(0);
+        expect(profiles().some((p) => p.startsWith(`${issuing.child.pid}-`))).toBe(false); // the next run removed the killed run's profile
       }
     }
     expect(killed).toBe(true);

@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it, vi } from 'vitest';
 import { chmodSync, existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
-import { packsmith, startPacksmith } from '../helpers/cli.js';
+import { run, startPacksmith } from '../helpers/cli.js';
 import { pdfInfo, pdfText } from '../helpers/pdf.js';
 import { archiveOf, copyFixture, edit, folderHashes, mode, removeTree, scratch, sha } from '../helpers/archive.js';
 
@@ -13,7 +13,7 @@ const place = (label: string) => { const d = scratch(label); made.push(d); retur
 afterAll(() => made.forEach(removeTree));
 
 const issue = (job: string, out: string, ...more: string[]) =>
-  packsmith(['issue', job, '--by', 'T. Marwood', '--out', out, ...more]);
+  run(['issue', job, '--by', 'T. Marwood', '--out', out, ...more]);
 
 /** The changes section of a pack: its sub-headings and its table rows, as text. */
 function changesOf(html: string): { headings: string[]; rows: string[] } {
@@ -33,9 +33,9 @@ describe('packsmith issue: two revisions of one job', () => {
   const rev = (n: number) => join(archive, 'archive-job', `rev-${n}`);
   let first: Record<string, string>;
 
-  it('refuses while a check is not verified, unless open items are accepted', () => {
+  it('refuses while a check is not verified, unless open items are accepted', async () => {
     edit(job, 'readings/2026-10-09.csv', '500,ok,1.08', '500,not-tested,1.08');
-    const r = issue(job, out, '--date', '2026-10-10');
+    const r = await issue(job, out, '--date', '2026-10-10');
     edit(job, 'readings/2026-10-09.csv', '500,not-tested,1.08', '500,ok,1.08');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/archive-job has 1 not verified check, so no revision was issued/);
@@ -44,8 +44,8 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(existsSync(join(job, 'revisions.yaml'))).toBe(false);
   });
 
-  it('issues Revision 1: four read-only files, recorded in revisions.yaml', () => {
-    const r = issue(job, out, '--date', '2026-10-10', '--reason', 'Handover', '--accept-open-items');
+  it('issues Revision 1: four read-only files, recorded in revisions.yaml', async () => {
+    const r = await issue(job, out, '--date', '2026-10-10', '--reason', 'Handover', '--accept-open-items');
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     expect(readdirSync(rev(1)).sort()).toEqual(['data.json', 'manifest.json', 'pack.html', 'pack.pdf']);
@@ -63,10 +63,10 @@ describe('packsmith issue: two revisions of one job', () => {
     first = folderHashes(rev(1));
   });
 
-  it('gives byte-identical files when the same inputs are issued on the same date into another archive', () => {
+  it('gives byte-identical files when the same inputs are issued on the same date into another archive', async () => {
     const other = place('same');
     const copy = copyFixture('archive-job', other);
-    expect(issue(copy, join(other, 'out'), '--date', '2026-10-10', '--reason', 'Handover', '--accept-open-items').code).toBe(0);
+    expect((await issue(copy, join(other, 'out'), '--date', '2026-10-10', '--reason', 'Handover', '--accept-open-items')).code).toBe(0);
     expect(folderHashes(join(other, 'archive/archive-job/rev-1'))).toEqual(first);
   });
 
@@ -87,9 +87,9 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(changesOf(readFileSync(join(rev(1), 'pack.html'), 'utf8')).headings).toEqual(['Issue']);
   });
 
-  it('after one reading changes, issues Revision 2 listing exactly that change; Revision 1 is untouched', () => {
+  it('after one reading changes, issues Revision 2 listing exactly that change; Revision 1 is untouched', async () => {
     edit(job, 'readings/2026-10-09.csv', 'ok,1.08,', 'ok,1.12,');
-    const r = issue(job, out, '--date', '2026-10-12', '--reason', 'Zs re-read', '--accept-open-items');
+    const r = await issue(job, out, '--date', '2026-10-12', '--reason', 'Zs re-read', '--accept-open-items');
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('issued Revision 2');
     const { headings, rows } = changesOf(readFileSync(join(rev(2), 'pack.html'), 'utf8'));
@@ -101,43 +101,43 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(m2.previous).toEqual({ revision: 1, manifest_sha256: first['manifest.json'] });
     const record = parse(readFileSync(join(job, 'revisions.yaml'), 'utf8')) as { revisions: { revision: number }[] };
     expect(record.revisions.map((e) => e.revision)).toEqual([1, 2]);
-    expect(packsmith(['verify', join(root, 'projects')]).code).toBe(0);
+    expect((await run(['verify', join(root, 'projects')])).code).toBe(0);
     expect(existsSync(join(out, 'archive-job', 'rev-1'))).toBe(false); // never under --out
   });
 
-  it('refuses when nothing changed since the last revision', () => {
-    const r = issue(job, out, '--date', '2026-10-13', '--accept-open-items');
+  it('refuses when nothing changed since the last revision', async () => {
+    const r = await issue(job, out, '--date', '2026-10-13', '--accept-open-items');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/nothing changed since Revision 2 \(issued 2026-10-12\)/);
     expect(existsSync(rev(3))).toBe(false);
   });
 
-  it('refuses to issue into an archive that lacks the revisions revisions.yaml records', () => {
-    const r = issue(job, out, '--date', '2026-10-13', '--accept-open-items', '--archive', join(root, 'elsewhere'));
+  it('refuses to issue into an archive that lacks the revisions revisions.yaml records', async () => {
+    const r = await issue(job, out, '--date', '2026-10-13', '--accept-open-items', '--archive', join(root, 'elsewhere'));
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/revisions\.yaml: records revision 1, which .*elsewhere\/archive-job does not hold/);
     expect(existsSync(join(root, 'elsewhere'))).toBe(false);
   });
 
-  it('refuses an issue date before the previous revision', () => {
+  it('refuses an issue date before the previous revision', async () => {
     edit(job, 'readings/2026-10-09.csv', 'ok,1.12,', 'ok,1.10,');
-    const r = issue(job, out, '--date', '2026-10-11', '--accept-open-items');
+    const r = await issue(job, out, '--date', '2026-10-11', '--accept-open-items');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/before Revision 2's \(2026-10-12\)/);
   });
 
-  it('verify names one altered byte of an issued PDF and exits 1; issue then refuses to add to that archive', () => {
+  it('verify names one altered byte of an issued PDF and exits 1; issue then refuses to add to that archive', async () => {
     const pdf = join(rev(1), 'pack.pdf');
     chmodSync(pdf, 0o644);
     const bytes = readFileSync(pdf);
     const at = bytes.length >> 1;
     bytes[at] = bytes[at]! ^ 0x01;
     writeFileSync(pdf, bytes);
-    const v = packsmith(['verify', join(root, 'projects')]);
+    const v = await run(['verify', join(root, 'projects')]);
     expect(v.code).toBe(1);
     expect(v.stdout).toContain(`${join(archive, 'archive-job/rev-1/pack.pdf')}: altered`);
     expect(v.stdout.split('\n').filter((l) => l.startsWith(archive)).join('\n')).not.toMatch(/rev-2/); // findings name rev-1 only
-    const r = issue(job, out, '--date', '2026-10-14', '--accept-open-items');
+    const r = await issue(job, out, '--date', '2026-10-14', '--accept-open-items');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/do(es)? not check out/);
     expect(existsSync(rev(3))).toBe(false);
@@ -145,15 +145,15 @@ describe('packsmith issue: two revisions of one job', () => {
 });
 
 describe('packsmith issue: refusals and open items', () => {
-  it('refuses a job with a failing check without the flag; with it, the pack lists the fail first', () => {
+  it('refuses a job with a failing check without the flag; with it, the pack lists the fail first', async () => {
     const root = place('failing');
     const job = copyFixture('failing-job', root);
     const out = join(root, 'out');
-    const refused = issue(job, out, '--date', '2026-10-10');
+    const refused = await issue(job, out, '--date', '2026-10-10');
     expect(refused.code).toBe(1);
     expect(refused.stderr).toMatch(/failing-job has 1 failed check, so no revision was issued/);
     expect(refused.stderr.split('\n')[1]).toMatch(/DB1 circuit 2 polarity: fail/);
-    const r = issue(job, out, '--date', '2026-10-10', '--accept-open-items');
+    const r = await issue(job, out, '--date', '2026-10-10', '--accept-open-items');
     expect(r.code).toBe(0);
     const html = readFileSync(join(archiveOf(job), 'failing-job/rev-1/pack.html'), 'utf8');
     const openAt = html.indexOf('<h3>Open items</h3>');
@@ -165,16 +165,16 @@ describe('packsmith issue: refusals and open items', () => {
     expect(html.slice(0, html.indexOf('id="summary"'))).toMatch(/Issued with open items accepted/);
   });
 
-  it('refuses a job with errors, a bad date, and no --by', () => {
+  it('refuses a job with errors, a bad date, and no --by', async () => {
     const root = place('refusals');
     const out = join(root, 'out');
     const broken = copyFixture('broken-job', root);
     const job = copyFixture('archive-job', root);
-    const r = issue(broken, out, '--date', '2026-10-10');
+    const r = await issue(broken, out, '--date', '2026-10-10');
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/^broken-job\/project\.yaml:\d+:\d+: /);
-    expect(issue(job, out, '--date', '2026-02-30').stderr).toMatch(/found issue date "2026-02-30"; expected a date as YYYY-MM-DD/);
-    expect(packsmith(['issue', job, '--out', out, '--accept-open-items']).code).toBe(2);
+    expect((await issue(job, out, '--date', '2026-02-30')).stderr).toMatch(/found issue date "2026-02-30"; expected a date as YYYY-MM-DD/);
+    expect((await run(['issue', job, '--out', out, '--accept-open-items'])).code).toBe(2);
     expect(existsSync(out)).toBe(false);
     expect(existsSync(archiveOf(job))).toBe(false);
     expect(readdirSync(job).sort()).toEqual(['circuits.csv', 'project.yaml', 'readings']);
@@ -200,7 +200,7 @@ describe('packsmith issue: concurrent runs', () => {
     const numbers = ends.map((e) => Number(/issued Revision (\d+)/.exec(e.stdout)![1])).sort();
     expect(numbers).toEqual([1, 2]);
     // each job folder records the revision it issued, so the archive is checked against each alone
-    expect(packsmith(['verify', archive]).code).toBe(0);
+    expect((await run(['verify', archive])).code).toBe(0);
     const m2 = JSON.parse(readFileSync(join(archive, 'archive-job/rev-2/manifest.json'), 'utf8')) as Record<string, any>;
     expect(m2.previous.revision).toBe(1);
     expect(changesOf(readFileSync(join(archive, 'archive-job/rev-2/pack.html'), 'utf8')).headings).toEqual(['Changes since Revision 1', 'Readings changed']);

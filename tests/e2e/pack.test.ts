@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { packsmith, NO_ARCHIVE } from '../helpers/cli.js';
+import { run, NO_ARCHIVE } from '../helpers/cli.js';
 import { pdfText, pdfWords, type PageWords } from '../helpers/pdf.js';
 import { pdfStructure, type OutlineItem } from '../helpers/pdf-structure.js';
 
@@ -13,10 +13,10 @@ const pdf = (dir: string, job: string) => readFileSync(join(dir, job, 'draft/pac
 const titles = (items: OutlineItem[]) => items.map((i) => i.title);
 
 describe('the printed pack', () => {
-  beforeAll(() => {
-    const r = packsmith(['build', 'projects/tannery-row-refit', 'projects/marsh-street-surgery', 'projects/heronsgate-pottery', 'tests/fixtures/long-board', '--out', out, ...NO_ARCHIVE]);
+  beforeAll(async () => {
+    const r = await run(['build', 'projects/tannery-row-refit', 'projects/marsh-street-surgery', 'projects/heronsgate-pottery', 'tests/fixtures/long-board', '--out', out, ...NO_ARCHIVE]);
     if (r.code !== 0) throw new Error(r.stderr);
-    const l = packsmith(['build', 'tests/fixtures/pack-job', '--out', letter, '--paper', 'letter', ...NO_ARCHIVE]);
+    const l = await run(['build', 'tests/fixtures/pack-job', '--out', letter, '--paper', 'letter', ...NO_ARCHIVE]);
     if (l.code !== 0) throw new Error(l.stderr);
   });
 

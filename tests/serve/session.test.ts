@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { copyFixture } from '../helpers/archive.js';
 import { fieldsFor, newLabel, saveSession, sessionCsv, type SessionInput } from '../../src/serve/session.js';
 import { loadJob } from '../../src/job.js';
-import { packsmith } from '../helpers/cli.js';
+import { run } from '../helpers/cli.js';
 import { readJob } from '../../src/load/job.js';
 
 const input = (values: Record<string, Record<string, string>>, extra: Partial<SessionInput> = {}): SessionInput => ({
@@ -15,7 +15,7 @@ const input = (values: Record<string, Record<string, string>>, extra: Partial<Se
 
 describe('the readings a circuit is asked for', () => {
   const names = (c: { ring: boolean; rcd_ma?: number }) => fieldsFor(c).map((f) => f.name);
-  it('ring end-to-end readings only for a ring; RCD times and button only where there is an RCD', () => {
+  it('ring end-to-end readings only for a ring; RCD times and button only where there is an RCD', async () => {
     expect(names({ ring: false })).not.toContain('ring_r1_ohm');
     expect(names({ ring: false })).not.toContain('rcd_1x_ms');
     expect(names({ ring: true })).toEqual(expect.arrayContaining(['ring_r1_ohm', 'ring_rn_ohm', 'ring_r2_ohm']));
@@ -25,7 +25,7 @@ describe('the readings a circuit is asked for', () => {
 });
 
 describe('the name of a new session', () => {
-  it('is the date alone when the day is free, else a label sorting after every session of that day', () => {
+  it('is the date alone when the day is free, else a label sorting after every session of that day', async () => {
     expect(newLabel([], '2026-03-20', '')).toBe('');
     expect(newLabel([{ date: '2026-03-20', label: '' }], '2026-03-20', '')).toBe('session-02');
     expect(newLabel([{ date: '2026-03-20', label: '' }, { date: '2026-03-20', label: 'session-02' }], '2026-03-20', '')).toBe('session-03');
@@ -37,7 +37,7 @@ describe('the name of a new session', () => {
 });
 
 describe('saving a session', () => {
-  it('writes a new file that the job reads back, and a second save the same day its own file, in force after the first', () => {
+  it('writes a new file that the job reads back, and a second save the same day its own file, in force after the first', async () => {
     const job = copyFixture('pack-job');
     const first = saveSession(job, input({ 'DB-A/1': { zs_ohm: '0.71', r1r2_ohm: '0.52' } }));
     expect(first).toEqual({ ok: true, file: 'readings/2026-03-20.csv' });
@@ -52,7 +52,7 @@ describe('saving a session', () => {
     expect(readdirSync(join(job, 'readings')).filter((n) => n.startsWith('.'))).toEqual([]); // no working file left
   });
 
-  it('never replaces a session file, even one written between the check and the write', () => {
+  it('never replaces a session file, even one written between the check and the write', async () => {
     const job = copyFixture('pack-job');
     writeFileSync(join(job, 'readings/2026-03-20.csv'), 'board,ref,zs_ohm\nDB-A,1,0.70\n');
     const r = saveSession(job, input({ 'DB-A/1': { zs_ohm: '0.71' } }));
@@ -60,7 +60,7 @@ describe('saving a session', () => {
     expect(readFileSync(join(job, 'readings/2026-03-20.csv'), 'utf8')).toBe('board,ref,zs_ohm\nDB-A,1,0.70\n');
   });
 
-  it('refuses an invalid cell with the message check prints for the same file, and writes nothing', () => {
+  it('refuses an invalid cell with the message check prints for the same file, and writes nothing', async () => {
     const job = copyFixture('pack-job');
     const r = saveSession(job, input({ 'DB-A/2': { zs_ohm: '0,62', rcd_1x_ms: '-3', polarity: 'maybe' }, 'DB-A/1': { zs_ohm: '0.7' } }));
     expect(r.ok).toBe(false);
@@ -68,7 +68,7 @@ describe('saving a session', () => {
     expect(existsSync(join(job, 'readings/2026-03-20.csv'))).toBe(false);
     // the same cells written by hand, as check reads them
     writeFileSync(join(job, 'readings/2026-03-20.csv'), sessionCsv(input({ 'DB-A/2': { zs_ohm: '0,62', rcd_1x_ms: '-3', polarity: 'maybe' }, 'DB-A/1': { zs_ohm: '0.7' } })).text);
-    const check = packsmith(['check', job]);
+    const check = await run(['check', job]);
     expect(check.code).toBe(2);
     for (const field of ['zs_ohm', 'rcd_1x_ms', 'polarity']) {
       const message = r.cells.get(`DB-A/2|${field}`);
@@ -78,7 +78,7 @@ describe('saving a session', () => {
     expect(r.cells.has('DB-A/1|zs_ohm')).toBe(false);
   });
 
-  it('refuses a bad date or label, an empty session, and a job folder with other problems', () => {
+  it('refuses a bad date or label, an empty session, and a job folder with other problems', async () => {
     const job = copyFixture('pack-job');
     const bad = saveSession(job, input({ 'DB-A/1': { zs_ohm: '0.7' } }, { date: '2026-02-30', label: '../x' }));
     expect(bad.ok).toBe(false);
