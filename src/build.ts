@@ -25,7 +25,7 @@ import { cachedTreeHash, lazyPrinter, ownTheme, packFiles, packPdf, styleOf, tem
 import type { Project } from './model/validate.js';
 import type { Assessment } from './calc/types.js';
 import { claimOut, outDir } from './archive/out.js';
-import { VERSION } from './version.js';
+import { buildId, VERSION } from './version.js';
 
 export interface BuildOptions {
   jobs: string[];
@@ -117,7 +117,7 @@ function unchanged(dir: string, target: string, archive: string, latest: number 
   const files = jobInputFiles(dir);
   if (!files) return null;
   const want: Fingerprint = {
-    packsmith: VERSION,
+    packsmith: buildId(),
     input_hash: combinedHash(fileHashes(files)),
     templates_hash: templatesHash(given.theme ?? source.theme, given.paper ?? source.paper ?? 'A4', treeHash),
     base_revision: latest,
@@ -173,7 +173,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const latest = latestOf();
       const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
       const fingerprint: Fingerprint = {
-        packsmith: VERSION,
+        packsmith: buildId(),
         input_hash: combinedHash(fileHashes(job.raw.files)),
         templates_hash: style.templatesHash,
         base_revision: latest?.number ?? null,

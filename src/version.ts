@@ -1,4 +1,30 @@
 // packsmith's own version, from package.json (the same file from src/ under vitest and from dist/).
-import { readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync } from 'node:fs';
+import { dirname, join, relative } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
 export const VERSION: string = (JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8')) as { version: string }).version;
+
+let code: string | null = null;
+
+/**
+ * The version with a short hash of packsmith's own modules (the compiled files beside this one),
+ * so a draft built by other code (a fix to a rule without a new version number) is built again.
+ */
+export function buildId(): string {
+  if (code === null) {
+    const root = dirname(fileURLToPath(import.meta.url));
+    const h = createHash('sha256');
+    const walk = (dir: string): void => {
+      for (const e of readdirSync(dir, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
+        const p = join(dir, e.name);
+        if (e.isDirectory()) walk(p);
+        else if (/\.(js|ts)$/.test(e.name) && !e.name.endsWith('.d.ts')) h.update(relative(root, p)).update('\0').update(readFileSync(p)).update('\0');
+      }
+    };
+    walk(root);
+    code = h.digest('hex').slice(0, 12);
+  }
+  return `${VERSION}+${code}`;
+}

@@ -46,6 +46,16 @@ describe('packsmith build, incrementally', () => {
     expect(rebuilt(await build('--force'))).toEqual(['archive-job', 'failing-job']);
   });
 
+  it('rebuilds a draft that other packsmith code built, though the version number is the same', async () => {
+    const file = join(out, 'failing-job', 'draft', 'build.json');
+    const stampJson = JSON.parse(readFileSync(file, 'utf8')) as { fingerprint: { packsmith: string } };
+    expect(stampJson.fingerprint.packsmith).toMatch(/^\d+\.\d+\.\d+\+[0-9a-f]{12}$/); // the version and a hash of the code
+    stampJson.fingerprint.packsmith = stampJson.fingerprint.packsmith.replace(/\+.*/, '+000000000000');
+    writeFileSync(file, JSON.stringify(stampJson));
+    const r = await build();
+    expect(rebuilt(r)).toEqual(['failing-job']);
+  });
+
   it('rebuilds a draft printed without Chromium once Chromium is there', async () => {
     const noChrome = await run(['build', f, '--out', out], { PACKSMITH_CHROME: '/nonexistent/chromium' });
     expect(noChrome.stdout).toContain('failing-job: unchanged'); // its PDF is there and still of these inputs
