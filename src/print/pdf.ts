@@ -29,7 +29,10 @@ export function pdfOptions(opts: PdfOptions): PDFOptions {
     margin: { top: '18mm', bottom: '16mm', left: '14mm', right: '14mm' },
     tagged: true,
     outline: true,
-    waitForFonts: true,
+    // The load event has waited for the fonts layout asked for (system fonts, or data: fonts of a
+    // theme). Puppeteer's own wait runs a script on the page, which has JavaScript off, and on a
+    // large pack (300 circuits and up) it never returned: the print stalled with Chromium idle.
+    waitForFonts: false,
   };
 }
 
