@@ -43,6 +43,15 @@ export function pdfOptions(opts: PdfOptions): PDFOptions {
  */
 export const printBudgetMs = (htmlBytes: number): number => 120_000 + Math.ceil((htmlBytes / 1_048_576) * 120_000);
 
+/** A file's size, 0 where it cannot be read (the page load then says why). */
+const sizeOf = (path: string): number => {
+  try {
+    return statSync(path).size;
+  } catch {
+    return 0;
+  }
+};
+
 /** `work` or, when it has not settled within `ms`, an error naming what took too long. */
 export async function withinBudget<T>(work: Promise<T>, ms: number, what: string): Promise<T> {
   let timer: NodeJS.Timeout | undefined;
@@ -87,7 +96,7 @@ export async function preparePage(page: Page): Promise<PrintPage> {
       refused = [];
       navigation = null;
       // Puppeteer's own limits (30 s a step) are lifted; one watchdog scaled to the pack covers the whole print.
-      const budget = printBudgetMs(statSync(htmlPath).size);
+      const budget = printBudgetMs(sizeOf(htmlPath));
       const work = async () => {
         await page.goto(own!, { waitUntil: 'load', timeout: 0 });
         let err = away();
