@@ -32,8 +32,12 @@ const q = (s: string): string => JSON.stringify(s);
 
 export interface Generated { root: string; jobs: string[]; circuits: number }
 
-/** `count` jobs under `root`; `perJob` fixes each job's number of circuits (default 10–40). */
-export function generateArchive(root: string, count: number, seed = 7, perJob?: number): Generated {
+/** How big each job is: circuits and boards drawn between these bounds (default 10–40 circuits on 1–3 boards). */
+export interface JobSize { circuits?: [number, number]; boards?: [number, number] }
+
+export function generateArchive(root: string, count: number, seed = 7, size: JobSize = {}): Generated {
+  const [cLo, cHi] = size.circuits ?? [10, 40];
+  const [bLo, bHi] = size.boards ?? [1, 3];
   const rnd = random(seed);
   const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rnd() * xs.length)]!;
   const int = (lo: number, hi: number) => lo + Math.floor(rnd() * (hi - lo + 1));
@@ -43,7 +47,7 @@ export function generateArchive(root: string, count: number, seed = 7, perJob?: 
     const name = `bench-job-${String(j).padStart(3, '0')}`;
     const dir = join(root, name);
     mkdirSync(join(dir, 'readings'), { recursive: true });
-    const boards = Array.from({ length: int(1, 3) }, (_, b) => `DB${b + 1}`);
+    const boards = Array.from({ length: int(bLo, bHi) }, (_, b) => `DB${b + 1}`);
     const ze = (0.15 + rnd() * 0.25).toFixed(2);
     writeFileSync(join(dir, 'project.yaml'), [
       '# Generated bench job: an invented scenario.',
@@ -57,7 +61,7 @@ export function generateArchive(root: string, count: number, seed = 7, perJob?: 
       ...boards.map((b) => `  - { id: ${b}, location: ${q(pick(ROOMS))} }`),
       '',
     ].join('\n'));
-    const n = perJob ?? int(10, 40);
+    const n = int(cLo, cHi);
     circuits += n;
     const circuitRows = ['board,ref,description,kind,ib_a,device,rating_a,live_mm2,cpc_mm2,length_m,method,rcd_ma,rcd_type,ring'];
     const readingRows = ['board,ref,r1r2_ohm,ir_ll_mohm,ir_le_mohm,ir_test_v,polarity,zs_ohm,rcd_1x_ms,rcd_5x_ms,rcd_button,tested_by'];

@@ -51,7 +51,7 @@ export async function rebuildAfterRetest(root: string, count: number): Promise<{
 
 /** One job of `circuits` circuits built by the command line: wall time, exit code, pages, and peak memory of the whole process tree. */
 export async function largeJob(root: string, circuits: number): Promise<{ seconds: number; code: number | null; pages: number | null; peakMb: number; error: string }> {
-  const [job] = generateArchive(join(root, `large-${circuits}`), 1, 13, circuits).jobs;
+  const [job] = generateArchive(join(root, `large-${circuits}`), 1, 13, { circuits: [circuits, circuits], boards: [Math.max(1, Math.round(circuits / 40)), Math.max(1, Math.round(circuits / 40))] }).jobs;
   const out = join(root, `large-out-${circuits}`);
   const t = process.hrtime.bigint();
   const child = spawn(process.execPath, [CLI, 'build', job!, '--out', out], { stdio: ['ignore', 'ignore', 'pipe'] });
@@ -70,7 +70,7 @@ export async function largeJob(root: string, circuits: number): Promise<{ second
 
 /** `check` of a 40-circuit job from the shell, `runs` times: each wall time in seconds. */
 export function checkStart(root: string, runs = 7): number[] {
-  const [job] = generateArchive(join(root, 'check-40'), 1, 17, 40).jobs;
+  const [job] = generateArchive(join(root, 'check-40'), 1, 17, { circuits: [40, 40] }).jobs;
   return Array.from({ length: runs }, () => {
     const t = process.hrtime.bigint();
     spawnSync(process.execPath, [CLI, 'check', job!], { stdio: 'ignore' });

@@ -76,6 +76,9 @@ export function clearStaleProfiles(folder = profilesFolder()): string[] {
   return removed;
 }
 
+/** How long Chromium may take to start. */
+export const LAUNCH_TIMEOUT_MS = 120_000;
+
 export async function launchBrowser(executablePath: string): Promise<PrintBrowser> {
   const folder = profilesFolder();
   clearStaleProfiles(folder);
@@ -88,6 +91,11 @@ export async function launchBrowser(executablePath: string): Promise<PrintBrowse
       headless: true,
       // Over a pipe, Chromium ends with packsmith even when packsmith is killed outright.
       pipe: true,
+      // Starting does not grow with the packs; a loaded machine can still take its time.
+      timeout: LAUNCH_TIMEOUT_MS,
+      // No limit per browser command: printing a large pack is one command that takes as long as
+      // the pack is long. Each print has a watchdog scaled to its pack instead (pdf.ts).
+      protocolTimeout: 0,
       args: [...CHROMIUM_FLAGS, `--user-data-dir=${profile}`],
     });
   } catch (e) {

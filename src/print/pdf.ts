@@ -3,6 +3,7 @@
 // tries to navigate away (a meta refresh, even to a data: URL) is refused and not printed.
 // The PDF is tagged (headings, tables, lists keep their structure for assistive technology) and
 // carries an outline built from the pack's headings: one bookmark per section, board and circuit.
+import { statSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page, PDFOptions } from 'puppeteer-core';
 
@@ -28,8 +29,40 @@ export function pdfOptions(opts: PdfOptions): PDFOptions {
     margin: { top: '18mm', bottom: '16mm', left: '14mm', right: '14mm' },
     tagged: true,
     outline: true,
-    waitForFonts: true,
+    // The load event has waited for the fonts layout asked for (system fonts, or data: fonts of a
+    // theme). Puppeteer's own wait runs a script on the page, which has JavaScript off, and on a
+    // large pack (300 circuits and up) it never returned: the print stalled with Chromium idle.
+    waitForFonts: false,
   };
+}
+
+/**
+ * How long one pack may take to load and print, grown with its HTML: two minutes, and two more
+ * per MB (a 2,000-circuit pack is about 20 MB and prints in minutes; this allows ten times that).
+ * It only stops a print that hangs: no pack, however large, is refused for its size.
+ */
+export const printBudgetMs = (htmlBytes: number): number => 120_000 + Math.ceil((htmlBytes / 1_048_576) * 120_000);
+
+/** A file's size, 0 where it cannot be read (the page load then says why). */
+const sizeOf = (path: string): number => {
+  try {
+    return statSync(path).size;
+  } catch {
+    return 0;
+  }
+};
+
+/** `work` or, when it has not settled within `ms`, an error naming what took too long. */
+export async function withinBudget<T>(work: Promise<T>, ms: number, what: string): Promise<T> {
+  let timer: NodeJS.Timeout | undefined;
+  const expired = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new Error(`${what} took more than ${Math.round(ms / 1000)} s (allowed for its size), so it was stopped`)), ms);
+  });
+  try {
+    return await Promise.race([work, expired]);
+  } finally {
+    clearTimeout(timer);
+  }
 }
 
 /** A page that prints packs: no JavaScript, and only the file being printed may load. */
@@ -62,18 +95,23 @@ export async function preparePage(page: Page): Promise<PrintPage> {
       own = pathToFileURL(htmlPath).href;
       refused = [];
       navigation = null;
-      await page.goto(own, { waitUntil: 'load' });
-      let err = away();
-      if (err) throw err;
-      let pdf: Uint8Array;
-      try {
-        pdf = await page.pdf(pdfOptions(opts));
-      } catch (e) {
-        throw away() ?? e; // the refused navigation is the cause worth naming
-      }
-      err = away();
-      if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
-      return { pdf, refused };
+      // Puppeteer's own limits (30 s a step) are lifted; one watchdog scaled to the pack covers the whole print.
+      const budget = printBudgetMs(sizeOf(htmlPath));
+      const work = async () => {
+        await page.goto(own!, { waitUntil: 'load', timeout: 0 });
+        let err = away();
+        if (err) throw err;
+        let pdf: Uint8Array;
+        try {
+          pdf = await page.pdf({ ...pdfOptions(opts), timeout: 0 });
+        } catch (e) {
+          throw away() ?? e; // the refused navigation is the cause worth naming
+        }
+        err = away();
+        if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
+        return { pdf, refused };
+      };
+      return withinBudget(work(), budget, `printing ${htmlPath}`);
     },
   };
 }

@@ -6,6 +6,7 @@ import type { Assessment } from '../calc/types.js';
 import { buildView, type RenderOptions, type ThemeAssets } from './view.js';
 import { createEngine, type Engine } from './engine.js';
 import { inlineCss, withCsp } from './csp.js';
+import { CURVE_CSS } from './snippet.js';
 
 export interface RenderedPack {
   html: string;
@@ -16,7 +17,8 @@ export interface RenderedPack {
 
 export function themeAssets(engine: Engine): ThemeAssets {
   const logo = engine.files.logo();
-  return { css: inlineCss(`${engine.asset('pack.css')}\n${engine.asset('theme.css')}`), logo: logo ? { src: logo.src } : null };
+  // the curve snippets' stylesheet once for the whole pack (they carry none of their own), before the theme's
+  return { css: inlineCss(`${engine.asset('pack.css')}\n${CURVE_CSS}\n${engine.asset('theme.css')}`), logo: logo ? { src: logo.src } : null };
 }
 
 export function renderPackFiles(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): RenderedPack {

@@ -65,7 +65,34 @@ function grid(): string[] {
   return out;
 }
 
-export function curveSnippet(opts: CurveSnippetOptions): string {
+/**
+ * The snippet's stylesheet, scoped to it. A standalone snippet carries it in a <style> of its own;
+ * a pack holds it once in its head (themeAssets), because every <style> inside an inline SVG is a
+ * stylesheet of the whole page, and thousands of them make Chromium's layout slow and large.
+ */
+const CURVE_RULES: [selectors: string, declarations: string][] = [
+  ['.grid', 'stroke:#ccc;stroke-width:0.5'],
+  ['.tick,.axis,.note', 'fill:#222'],
+  ['.note', 'paint-order:stroke;stroke:#fff;stroke-width:3px;stroke-linejoin:round'],
+  ['.band', 'fill:#9bb7d4;fill-opacity:0.45;stroke:none'],
+  ['.slowest', 'fill:none;stroke:#1d3f66;stroke-width:1.5'],
+  ['.fastest', 'fill:none;stroke:#1d3f66;stroke-width:0.75'],
+  ['.required', 'stroke:#a33;stroke-width:1;stroke-dasharray:4 3'],
+  ['.fault', 'stroke:#333;stroke-width:0.75;stroke-dasharray:1 2'],
+  ['.marker', 'fill:#a33;stroke:#fff;stroke-width:1'],
+  ['.frame', 'fill:none;stroke:#444;stroke-width:0.75'],
+  ['.band2', 'stroke:none'],
+  ['.slowest2', 'fill:none;stroke:#6a4a00;stroke-width:1.2;stroke-dasharray:5 2'],
+  ['.upto', 'stroke:#6a4a00;stroke-width:0.75;stroke-dasharray:1 2'],
+];
+export const CURVE_CSS = CURVE_RULES.map(([sel, decl]) => `${sel.split(',').map((s) => `svg.ps-curve ${s}`).join(',')}{${decl}}`).join('');
+
+export interface SnippetForm {
+  /** carry the stylesheet inside the SVG (default); false where the page holds CURVE_CSS once */
+  style?: boolean;
+}
+
+export function curveSnippet(opts: CurveSnippetOptions, form: SnippetForm = {}): string {
   const { device } = opts;
   const name = `${device.code} ${fmt(device.rating_a)} A`;
   const ch = characteristic(device);
@@ -141,12 +168,7 @@ export function curveSnippet(opts: CurveSnippetOptions): string {
     `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans Condensed, DejaVu Sans, sans-serif" font-size="${FONT}">`,
     `<title>${escape(title)}</title>`,
     `<desc>${escape(desc.join(' '))}</desc>`,
-    '<style>.grid{stroke:#ccc;stroke-width:0.5}.tick,.axis,.note{fill:#222}.note{paint-order:stroke;stroke:#fff;stroke-width:3px;stroke-linejoin:round}.band{fill:#9bb7d4;fill-opacity:0.45;stroke:none}'
-      + '.slowest{fill:none;stroke:#1d3f66;stroke-width:1.5}.fastest{fill:none;stroke:#1d3f66;stroke-width:0.75}'
-      + '.required{stroke:#a33;stroke-width:1;stroke-dasharray:4 3}.fault{stroke:#333;stroke-width:0.75;stroke-dasharray:1 2}'
-      + '.marker{fill:#a33;stroke:#fff;stroke-width:1}.frame{fill:none;stroke:#444;stroke-width:0.75}'
-      + (opts.downstream ? '.band2{stroke:none}.slowest2{fill:none;stroke:#6a4a00;stroke-width:1.2;stroke-dasharray:5 2}.upto{stroke:#6a4a00;stroke-width:0.75;stroke-dasharray:1 2}' : '')
-      + '</style>',
+    ...(form.style === false ? [] : [`<style>${CURVE_CSS}</style>`]),
     ...(opts.downstream ? [`<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`] : []),
     `<g transform="translate(${M.left},${M.top})">`,
     ...grid(),

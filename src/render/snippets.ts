@@ -56,7 +56,10 @@ export function snippetRequest(
   return { request: { device, faultCurrentA, requiredS, title }, caption };
 }
 
-/** A standalone SVG of the request: the band (or a note that the library has none), the fault point, the required time. */
+/**
+ * An SVG of the request for a pack: the band (or a note that the library has none), the fault
+ * point, the required time; without a stylesheet of its own (the pack holds CURVE_CSS once).
+ */
 export function circuitSnippet(request: SnippetRequest): string {
-  return curveSnippet(request);
+  return curveSnippet(request, { style: false });
 }

@@ -4,10 +4,21 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
-import { printPdf } from '../../src/print/pdf.js';
+import { printBudgetMs, printPdf, withinBudget } from '../../src/print/pdf.js';
 import { pdfText } from '../helpers/pdf.js';
 
 const chromium = findChromium();
+
+describe('the time a print may take', () => {
+  it('grows with the pack, so no pack is refused for its size, and stops only a print that hangs', async () => {
+    expect(printBudgetMs(0)).toBe(120_000);
+    // a 2,000-circuit pack is about 20 MB of HTML: over 40 minutes allowed
+    expect(printBudgetMs(20 * 1_048_576)).toBeGreaterThan(40 * 60_000);
+    expect(printBudgetMs(40 * 1_048_576)).toBeGreaterThan(printBudgetMs(20 * 1_048_576));
+    await expect(withinBudget(new Promise(() => undefined), 20, 'printing pack.html')).rejects.toThrow(/printing pack.html took more than 0 s/);
+    await expect(withinBudget(Promise.resolve('done'), 1000, 'printing pack.html')).resolves.toBe('done');
+  });
+});
 
 describe('printing a pack', () => {
   let browser: PrintBrowser;

@@ -200,6 +200,19 @@ describe('the pack view', () => {
     expect(engine.render('pack.hbs', view).match(/curve not available/g)).toHaveLength(1);
   });
 
+  it('holds the curves\' stylesheet once in its head, scoped to the curves, and no <style> inside any curve', () => {
+    const { project, assessment } = job(DEMO);
+    const html = renderPack(project, assessment, OPTS);
+    const curves = html.match(/<svg [^>]*class="ps-curve"[\s\S]*?<\/g>\n<\/svg>/g) ?? [];
+    expect(curves.length).toBe(assessment.circuits.length);
+    expect(curves.filter((svg) => svg.includes('<style'))).toEqual([]);
+    const head = html.slice(0, html.indexOf('</head>'));
+    expect(html.split('svg.ps-curve .required{').length - 1).toBe(1);
+    expect(head).toContain('svg.ps-curve .required{');
+    // scoped: a class of the pack's own HTML (a theme's cover band, a note) is not drawn as a curve
+    expect(head).not.toMatch(/[}>]\.band\{/);
+  });
+
   it('ranks a circuit by its worst check', () => {
     expect(worstStatus(['pass', 'n/a', 'attention'])).toBe('attention');
     expect(worstStatus(['pass', 'not-verified', 'fail'])).toBe('fail');

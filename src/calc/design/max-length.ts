@@ -109,7 +109,8 @@ export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Ch
   if (found === null) return { length_m: null, beyond: false, limited_by: [] };
   if (found === 'beyond') return { length_m: TO_M, beyond: true, limited_by: [] };
   let [a, b] = found;
-  for (let n = 0; n < BISECTIONS; n++) {
+  // a only grows and stays below b, so once both round down to the same 0.1 m the answer is known
+  for (let n = 0; n < BISECTIONS && Math.floor(a * 10) !== Math.floor(b * 10); n++) {
     const m = (a + b) / 2;
     if (passes(m)) a = m; else b = m;
   }

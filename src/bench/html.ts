@@ -1,0 +1,54 @@
+// The bench's HTML stage: every job loaded, validated, assessed, rendered through the built-in
+// templates and written, on one core. Also runnable alone, for a profile:
+//
+//   node --cpu-prof dist/bench/html.js [--jobs 200]
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import { pathToFileURL } from 'node:url';
+import { loadJob } from '../job.js';
+import { engineCache } from '../render/engine.js';
+import { renderPackFiles } from '../render/pack.js';
+import type { PdfOptions } from '../print/pdf.js';
+import { generateArchive } from './generate.js';
+
+export interface HtmlStage {
+  seconds: number;
+  /** CPU time of this process over the stage (user + system): the figure a loaded machine does not skew */
+  cpuSeconds: number;
+  /** each pack's HTML file and its running header and footer */
+  packs: { html: string; opts: PdfOptions }[];
+}
+
+export function htmlStage(jobs: string[], htmlDir: string): HtmlStage {
+  const engineFor = engineCache();
+  const packs: HtmlStage['packs'] = [];
+  mkdirSync(htmlDir, { recursive: true });
+  const t0 = performance.now();
+  const c0 = process.cpuUsage();
+  for (const dir of jobs) {
+    const job = loadJob(dir);
+    if (!job.ok) throw new Error(`generated job ${dir} is invalid: ${job.errors[0]?.message}`);
+    const r = renderPackFiles(job.project, job.assessment, { revisionLabel: 'DRAFT', draft: true, date: '2026-01-23' }, engineFor(null));
+    const file = join(htmlDir, `${job.project.name}.html`);
+    writeFileSync(file, r.html);
+    packs.push({ html: file, opts: { header: r.header, footer: r.footer, format: 'A4' } });
+  }
+  const cpu = process.cpuUsage(c0);
+  return { seconds: (performance.now() - t0) / 1000, cpuSeconds: (cpu.user + cpu.system) / 1e6, packs };
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' } } });
+  const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-html-'));
+  try {
+    const archive = generateArchive(join(root, 'projects'), Number(values.jobs));
+    for (let i = 0; i < Number(values.rounds); i++) {
+      const { seconds, cpuSeconds } = htmlStage(archive.jobs, join(root, 'html'));
+      process.stdout.write(`HTML stage: ${archive.jobs.length} jobs, ${archive.circuits} circuits in ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / seconds)} circuits/s wall, ${Math.round(archive.circuits / cpuSeconds)} circuits/s CPU\n`);
+    }
+  } finally {
+    rmSync(root, { recursive: true, force: true });
+  }
+}

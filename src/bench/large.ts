@@ -1,0 +1,61 @@
+// The bench's large job: one generated job of N circuits (about 40 a board) built with `build`
+// from scratch, HTML and PDF, while the resident memory of this process and its Chromium is
+// sampled. Run alone so the peak is the build's own:
+//
+//   node dist/bench/large.js [--circuits 2000] [--keep]
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import { pathToFileURL } from 'node:url';
+import { build } from '../build.js';
+import { generateArchive } from './generate.js';
+import { sampleTree } from './memory.js';
+
+export interface LargeJobFigures {
+  circuits: number;
+  boards: number;
+  pages: number;
+  /** the whole build: load, check, render, print */
+  seconds: number;
+  /** peak resident memory of node and Chromium together, MB */
+  peakMb: number;
+}
+
+/** Build one generated job of `circuits` circuits into a temporary folder; the figures of that build. */
+export async function largeJob(circuits: number, keep = false): Promise<LargeJobFigures> {
+  const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-large-'));
+  const boards = Math.max(1, Math.round(circuits / 40));
+  try {
+    const job = generateArchive(join(root, 'projects'), 1, 7, { circuits: [circuits, circuits], boards: [boards, boards] });
+    const mem = sampleTree(() => process.pid, 100);
+    const t0 = performance.now();
+    const r = await build({ jobs: job.jobs, out: join(root, 'out'), progress: { isTTY: false, write: () => true }, log: (l) => process.stderr.write(`${l}\n`) })
+      .catch((e: unknown) => e instanceof Error ? e : new Error(String(e)));
+    const seconds = (performance.now() - t0) / 1000;
+    const peakMb = mem.stop();
+    const failed = (why: string) => new Error(`the ${circuits}-circuit job printed no PDF after ${seconds.toFixed(1)} s, peak ${peakMb.toFixed(0)} MB (node + Chromium): ${why}`);
+    if (r instanceof Error) throw failed(r.message);
+    const pdf = r.built[0]?.pdf;
+    if (!pdf) throw failed('no Chromium');
+    const { PDFDocument } = await import('pdf-lib');
+    const pages = (await PDFDocument.load(readFileSync(pdf), { updateMetadata: false })).getPageCount();
+    return { circuits: job.circuits, boards, pages, seconds, peakMb };
+  } finally {
+    if (keep) process.stderr.write(`kept ${root}\n`);
+    else rmSync(root, { recursive: true, force: true });
+  }
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const { values } = parseArgs({ options: { circuits: { type: 'string', default: '2000' }, keep: { type: 'boolean' } } });
+  const n = Number(values.circuits);
+  if (!Number.isInteger(n) || n < 1) throw new Error(`--circuits ${values.circuits}: expected a whole number`);
+  largeJob(n, values.keep ?? false).then(
+    (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s, peak ${f.peakMb.toFixed(0)} MB (node + Chromium)\n`),
+    (e: unknown) => {
+      process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);
+      process.exitCode = 1;
+    },
+  );
+}
