@@ -8,7 +8,6 @@ import { dirname, join, resolve } from 'node:path';
 import { FIRM_FILE, firmFileFrom, readFirmFile } from '../load/firm.js';
 import type { LocatedError } from '../load/raw.js';
 
-export { FIRM_FILE };
 export const DEFAULT_ARCHIVE = 'archive';
 
 export interface ArchiveSettings {

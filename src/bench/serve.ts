@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import { basename, join } from 'node:path';
 import { serve } from '../serve/server.js';
 import { launchBrowser } from '../print/browser.js';
+import { today } from '../commands/today.js';
 
 export interface PreviewTimes {
   circuits: number;
@@ -36,9 +37,7 @@ export async function previewRefresh(jobs: string[], chromium: string, saves = 9
     await page.setBypassCSP(true); // the waiting below is evaluated in the page, which the served policy would refuse
     await page.goto(`${s.url}job/${encodeURIComponent(basename(job))}/`, { waitUntil: 'load' });
     // dated today, so the session is the latest and its reading is the one the pack judges
-    const d = new Date();
-    const today = `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-    const file = join(job, `readings/${today}-bench.csv`);
+    const file = join(job, `readings/${today()}-bench.csv`);
     for (let i = 0; i <= saves; i++) {
       const zs = `0.${51 + 2 * i}`; // 0.51, 0.53 … 0.69: no trailing zero, so each is shown as written
       current = [];

@@ -180,7 +180,7 @@ function fallback(id: string): Label {
   const last = parts.at(-1)?.toLowerCase() ?? '';
   const unit = parts.length > 1 ? UNIT_SUFFIX[last] : undefined;
   const words = (unit ? parts.slice(0, -1) : parts).join(' ');
-  return { label: words.charAt(0).toUpperCase() + words.slice(1), ...(unit ? { unit } : {}) };
+  return { label: sentence(words), ...(unit ? { unit } : {}) };
 }
 
 export const checkLabel = (id: string): string => CHECK_LABELS[id] ?? fallback(id).label;

@@ -12,6 +12,7 @@ import { jobArchiveSettings } from '../archive/location.js';
 import { cachedTreeHash, lazyPrinter, packPdf, styleOf, type Printer } from '../produce.js';
 import { findChromium } from '../print/browser.js';
 import { inspectJob } from '../archive/verify.js';
+import { knownHashes, type KnownHashes } from '../archive/known.js';
 import { combinedHash, fileHashes } from '../archive/hash.js';
 import type { LocatedError } from '../load/raw.js';
 import type { Project } from '../model/validate.js';
@@ -59,11 +60,13 @@ export class LiveJobs {
   private engineFor = engineCache();
   private treeHash = cachedTreeHash();
   private printer: Printer | null = null;
+  private readonly known: KnownHashes;
   private readonly scratch = mkdtempSync(join(tmpdir(), 'packsmith-serve-'));
 
   constructor(opts: LiveJobsOptions) {
     this.root = resolve(opts.root);
     this.out = resolve(opts.out);
+    this.known = knownHashes(this.out);
     this.log = opts.log ?? ((l) => process.stderr.write(`${l}\n`));
   }
 
@@ -149,8 +152,9 @@ export class LiveJobs {
   private draftOf(project: Project, assessment: Assessment, job: LiveJob): Draft {
     const style = styleOf(project, job.dir, {}, this.engineFor, this.treeHash);
     job.theme = project.file.theme ? resolve(job.dir, project.file.theme) : null;
-    // the latest issued revision, from the job's archive (never from the drafts' folder)
-    const latest = inspectJob(jobArchiveSettings(job.dir).archive, project.name).revisions.at(-1) ?? null;
+    // the latest issued revision, from the job's archive (never from the drafts' folder); its files'
+    // hashes remembered by size and time as a build does, so a save does not re-hash every revision
+    const latest = inspectJob(jobArchiveSettings(job.dir).archive, project.name, { known: this.known }).revisions.at(-1) ?? null;
     const { label, data, pack } = draftPack(project, assessment, latest, style, this.log);
     const version = job.version + 1;
     let printed: Promise<Uint8Array> | null = null;

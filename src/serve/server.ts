@@ -14,7 +14,8 @@ import { draftPage, errorsPage, formPage, indexPage, messagePage, nonceStyles } 
 import { saveSession, type SessionInput } from './session.js';
 import { READING_COLUMNS, type ReadingField } from '../model/schema.js';
 import { NO_CHROMIUM_HELP } from '../print/browser.js';
-import { jobArchiveSettings } from '../archive/location.js';
+import { archiveSettings, jobArchiveSettings } from '../archive/location.js';
+import { today } from '../commands/today.js';
 
 export interface ServeOptions {
   /** a folder of job folders (default projects/), or one job folder */
@@ -64,11 +65,6 @@ export const csp = (nonce: string, scripts: boolean): string => [
   "frame-ancestors 'none'",
 ].join('; ');
 
-const today = (): string => {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-};
-
 const FIELDS = new Set<string>(READING_COLUMNS.filter((c) => c !== 'board' && c !== 'ref' && c !== 'tested_by'));
 
 /** The form's fields: `date`, `label`, `tested_by` and `v|<board>/<ref>|<field>` for each reading. */
@@ -107,9 +103,8 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
   const jobs = new LiveJobs({ root: opts.folder, out, log });
   const token = isLoopback(opts.host) ? null : randomBytes(24).toString('base64url');
   // the archive the served jobs issue to (the firm file's `archive:`, else archive/ beside their folder)
-  const firstJob = jobs.folders()[0];
-  const archiveDir = [firstJob ? jobArchiveSettings(firstJob).archive : null, join(jobs.root, 'archive'), join(dirname(jobs.root), 'archive')]
-    .find((d): d is string => d !== null && existsSync(d)) ?? null;
+  const archiveAt = (jobs.single ? jobArchiveSettings(jobs.root) : archiveSettings(jobs.root)).archive;
+  const archiveDir = existsSync(archiveAt) ? archiveAt : null;
   const events = new Events();
   let port = 0;
 
