@@ -1,5 +1,6 @@
 // Inputs the calculation cannot work with: a size, method or condition outside the published
-// tables, a three-phase circuit on a single-phase supply, a device used above its rated voltage.
+// tables, a three-phase circuit on a single-phase supply, a device used above its rated voltage,
+// an RCBO without its residual current rating.
 // They are input errors (the folder must be corrected), never guesses. Pure: validation takes
 // these rules and locates each problem in circuits.csv.
 import type { Circuit, ProjectFile } from '../model/schema.js';
@@ -30,7 +31,16 @@ export const ratedVoltage: CircuitRule = (c: Circuit, file: ProjectFile | null) 
   return { field: 'device', message: `${c.device} is rated up to ${fmt(rated.max_v)} V (${rated.source}); this circuit is at ${what}` };
 };
 
-export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage];
+/**
+ * An RCBO is an RCD with overcurrent protection (IEC 61009-1): without its residual current rating
+ * its RCD element would go untested and unjudged, so the rating is required.
+ */
+export const rcboRating: CircuitRule = (c: Circuit) =>
+  c.device.startsWith('rcbo:') && c.rcd_ma === undefined
+    ? { field: 'rcd_ma', message: `found nothing; ${c.device} is an RCBO: give the residual current rating of its RCD element (e.g. 30), so that it is tested and judged` }
+    : null;
+
+export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage, rcboRating];
 
 /** The tree of boards: a feeding circuit that is not in circuits.csv, or a loop, is an input error. */
 export const treeRule: ProjectRule = (file, circuitKeys) =>

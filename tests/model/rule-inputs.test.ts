@@ -2,7 +2,7 @@
 // three-phase circuit on a single-phase supply and a device above its rated voltage (point 11).
 import { describe, expect, it } from 'vitest';
 import { ProjectFileSchema, CircuitSchema } from '../../src/model/schema.js';
-import { phasesOnSupply, ratedVoltage } from '../../src/calc/inputs.js';
+import { phasesOnSupply, ratedVoltage, rcboRating } from '../../src/calc/inputs.js';
 import { BASE_CIRCUIT, projectFile } from '../helpers/project.js';
 import { demoCopy, errorsOf, replaceIn } from '../helpers/job.js';
 
@@ -41,6 +41,16 @@ describe('consistency of circuits.csv with project.yaml', () => {
     expect(ratedVoltage(circuit({ device: 'fuse:bs88-3', rating_a: '32', phases: '3' }), f230)).toMatchObject({ field: 'device' }); // 398 V between lines
     expect(ratedVoltage(circuit({ device: 'mcb:B', phases: '3' }), f230)).toBeNull(); // IEC 60898-1: up to 440 V
     expect(ratedVoltage(circuit({ device: 'fuse:bs3036', rating_a: '30' }), f230)).toBeNull();
+  });
+});
+
+describe('an RCBO without its residual current rating', () => {
+  // IEC 61009-1: an RCBO is a residual current device with overcurrent protection; its RCD element
+  // is tested like any RCD (IEC 60364-6, 6.4.3.8), which needs its IΔn
+  it('is an input error on rcd_ma; with a rating, or for an MCB, it is not', () => {
+    expect(rcboRating(circuit({ device: 'rcbo:B' }), null)).toMatchObject({ field: 'rcd_ma', message: expect.stringMatching(/rcbo:B is an RCBO/) });
+    expect(rcboRating(circuit({ device: 'rcbo:B', rcd_ma: '30' }), null)).toBeNull();
+    expect(rcboRating(circuit({ device: 'mcb:B' }), null)).toBeNull();
   });
 });
 
