@@ -6,6 +6,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, resolve } from 'node:path';
 import { loadJob } from '../job.js';
+import { jobInputFiles } from '../load/job.js';
 import { defaultJobs, draftPack, pdfDate } from '../build.js';
 import { engineCache } from '../render/engine.js';
 import { jobArchiveSettings } from '../archive/location.js';
@@ -114,6 +115,16 @@ export class LiveJobs {
     this.engineFor = engineCache();
     this.treeHash = cachedTreeHash();
     for (const j of this.jobs.values()) j.inputHash = '';
+  }
+
+  /**
+   * Whether a job's files differ from those of its last render (read and hashed, not parsed): a
+   * page asked for is then rendered first, so it is current even where the watcher missed a save.
+   */
+  stale(name: string): boolean {
+    const job = this.jobs.get(name);
+    const files = job ? jobInputFiles(job.dir) : null;
+    return job !== undefined && (files === null || combinedHash(fileHashes(files)) !== job.inputHash);
   }
 
   /**

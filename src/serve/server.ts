@@ -237,7 +237,8 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
       const job = jobs.get(name);
       if (!job) return sendPage(req, res, 404, messagePage('Not found', `No job "${name}" here.`, nonce), nonce);
       if (jobMatch[2] === undefined) return redirect(res, `/job/${encodeURIComponent(name)}/`);
-      return jobRoute(req, res, job, jobMatch[2], nonce);
+      if (jobs.stale(name)) renderNow(name); // a save the watcher has not reported (yet): render it now
+      return jobRoute(req, res, jobs.get(name) ?? job, jobMatch[2], nonce);
     }
     if (path === '/site' || path === '/archive') return redirect(res, `${path}/`);
     if (path.startsWith('/site/')) return sendFile(req, res, out, path.slice('/site/'.length), nonce);

@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import { copyFixture, edit, scratch } from '../helpers/archive.js';
 import { serve, type Serving } from '../../src/serve/server.js';
 import { packsmith } from '../helpers/cli.js';
+import { LiveJobs } from '../../src/serve/jobs.js';
 
 interface Reply { status: number; headers: Record<string, string | string[] | undefined>; body: string }
 
@@ -135,5 +136,20 @@ describe('packsmith serve after an issue', () => {
     } finally {
       await s.close();
     }
+  });
+});
+
+describe('a page asked for is current, even where the watcher missed a save', () => {
+  it('knows a job is stale from its files alone, and not once it is rendered again', () => {
+    const root = scratch('serve-stale');
+    copyFixture('pack-job', root);
+    const jobs = new LiveJobs({ root: join(root, 'projects'), out: join(root, 'out'), log: () => {} });
+    jobs.rescan();
+    expect(jobs.render('pack-job')).toBe(true);
+    expect(jobs.stale('pack-job')).toBe(false);
+    edit(join(root, 'projects', 'pack-job'), 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,9.9', 'DB-A,1,0.9,>999,>999,500,ok,0.73');
+    expect(jobs.stale('pack-job')).toBe(true);
+    expect(jobs.render('pack-job')).toBe(true);
+    expect(jobs.stale('pack-job')).toBe(false);
   });
 });
