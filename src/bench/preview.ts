@@ -17,9 +17,10 @@ async function main(): Promise<void> {
   try {
     const archive = generateArchive(join(root, 'projects'), 1, 17, { circuits: [40, 40] });
     const t = await previewRefresh(archive.jobs, chromium, Number(values.saves));
-    process.stdout.write(`preview refresh, ${t.circuits} circuits, ${t.saveToPage.length} saves: save → page ${describeTimes(t.saveToPage)}; server render ${describeTimes(t.render)}; render end → page ${describeTimes(t.browser)}\n`);
+    process.stdout.write(`preview refresh, ${t.circuits} circuits, ${t.saveToPage.length} saves: save → page ${describeTimes(t.saveToPage)}; of which watch ${describeTimes(t.watch)}, load-check-render ${describeTimes(t.render)}, render end → page painted ${describeTimes(t.browser)}; pages loaded again: ${t.reloads}\n`);
     process.stdout.write(`  save → page, each: ${t.saveToPage.map((x) => x.toFixed(0)).join(' ')}\n`);
     process.stdout.write(`  render, each: ${t.render.map((x) => x.toFixed(0)).join(' ')}\n`);
+    process.stdout.write(`  watch, each: ${t.watch.map((x) => x.toFixed(0)).join(' ')}\n`);
     process.stdout.write(`  render end → page, each: ${t.browser.map((x) => x.toFixed(0)).join(' ')}\n`);
   } finally {
     rmSync(root, { recursive: true, force: true });
