@@ -10,7 +10,7 @@
 // It writes readings/<today>-*.csv files into the job (as the form does): run it in a scratch
 // clone, or remove them afterwards.
 import { spawn } from 'node:child_process';
-import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import puppeteer from 'puppeteer-core';
@@ -71,7 +71,7 @@ try {
   await shot(desk, '1-index-desktop');
   await Promise.all([desk.waitForNavigation({ waitUntil: 'load' }), desk.click(`a[href="/job/${encodeURIComponent(job)}/"]`)]);
   await desk.evaluate((id) => { document.getElementById(id).scrollIntoView(); window.scrollBy(0, -60); window.walkthroughMark = 1; }, anchor);
-  say(`before: ${await zsLine(desk)}`);
+  say(`before, the desktop's check: ${(await zsLine(desk))?.replace(/\s+/g, ' ')}`);
   await shot(desk, '2-draft-before-desktop');
 
   // the phone: the session form of the job
@@ -91,6 +91,15 @@ try {
     if (i === 0) await shot(phone, '3-form-typed-phone');
 
     const shown = (p) => p.waitForFunction((id, zs) => document.getElementById(id)?.textContent.includes(`measured Zs ${zs} Ω`), { polling: 'mutation', timeout: 30_000 }, anchor, t.zs);
+    // where the time goes: the form's answer (saved, checked, rendered), the desktop's patch asked for and received
+    const marks = {};
+    const mark = (name) => { marks[name] ??= Math.round(performance.now() - t0); };
+    const onPhone = (r) => { if (r.request().method() === 'POST') mark('phonePostAnswered'); };
+    const onDeskAsk = (r) => { if (r.url().includes('/patch?')) mark('deskPatchAsked'); };
+    const onDesk = (r) => { if (r.url().includes('/patch?')) mark('deskPatchReceived'); };
+    phone.on('response', onPhone);
+    desk.on('request', onDeskAsk);
+    desk.on('response', onDesk);
     const t0 = performance.now();
     const [phoneMs, deskMs] = await Promise.all([
       (async () => {
@@ -100,11 +109,14 @@ try {
       })(),
       (async () => { await shown(desk); return performance.now() - t0; })(),
     ]);
+    phone.off('response', onPhone);
+    desk.off('request', onDeskAsk);
+    desk.off('response', onDesk);
     const inPlace = await desk.evaluate(() => window.walkthroughMark === 1);
-    const verdict = await zsLine(desk);
-    const saved = readdirSync(join('projects', job, 'readings')).sort().at(-1);
-    results.push({ retest: i + 1, zs: t.zs, saved, phoneMs: Math.round(phoneMs), desktopMs: Math.round(deskMs), desktopInPlace: inPlace, verdict });
-    say(`re-test ${i + 1}: saved ${saved}; phone shows it ${Math.round(phoneMs)} ms after the click, the open desktop draft ${Math.round(deskMs)} ms (${inPlace ? 'updated in place' : 'LOADED AGAIN'}); ${verdict}`);
+    const verdict = (await zsLine(desk))?.replace(/\s+/g, ' ');
+    const saved = new URL(phone.url()).searchParams.get('saved');
+    results.push({ retest: i + 1, zs: t.zs, saved, phoneMs: Math.round(phoneMs), desktopMs: Math.round(deskMs), desktopInPlace: inPlace, marks, verdict });
+    say(`re-test ${i + 1}: saved ${saved}; the phone shows it ${Math.round(phoneMs)} ms after the click, the open desktop draft ${Math.round(deskMs)} ms (${inPlace ? 'updated in place' : 'LOADED AGAIN'}); ms from the click: ${JSON.stringify(marks)}\n  the desktop's check: ${verdict}`);
     if (i === 0) {
       await phone.evaluate((id) => { document.getElementById(id).scrollIntoView(); window.scrollBy(0, -40); }, anchor);
       await shot(phone, '4-draft-after-save-phone');
