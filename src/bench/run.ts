@@ -134,7 +134,7 @@ async function main() {
     ...rebuilds.map((r): [string, string, string, string] => [`rebuild after one re-test, ${r.size} jobs`, `${r.seconds.toFixed(2)} s`, '', `${r.printed} pack printed; the drafts laid down first in ${r.setup.toFixed(0)} s (blank PDFs)`]),
     ['2,000-circuit job, build from the shell', large.code === 0 ? `${large.seconds.toFixed(1)} s` : `failed (exit ${large.code})`, '', `${large.pages ?? 'no'} pages, peak memory ${large.peakMb.toFixed(0)} MB (packsmith + Chromium)${large.code === 0 ? '' : `; ${large.error}`}`],
     ['check of a 40-circuit job, from the shell', `${(median(checks) * 1000).toFixed(0)} ms`, '', `median of ${checks.length}, max ${(Math.max(...checks) * 1000).toFixed(0)} ms`],
-    ...(preview ? [[`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, ${preview.saveToPage.length} saves; of which render ${describeTimes(preview.render)}`] as [string, string, string, string]] : []),
+    ...(preview ? [[`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, painted, ${preview.saveToPage.length} saves; of which watch ${describeTimes(preview.watch)}, render ${describeTimes(preview.render)}, render end → page ${describeTimes(preview.browser)}; pages loaded again ${preview.reloads}`] as [string, string, string, string]] : []),
     ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
     ['peak memory, node (whole bench)', `${nodeMb.toFixed(0)} MB`, '', ''],
   ];

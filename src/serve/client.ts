@@ -3,25 +3,103 @@
 // session: the form posts without them.
 
 /**
- * A draft or the index: reload when the server says the job changed, keeping the scroll position.
- * On connecting, the server tells a draft's page the job's version: a save made while the page
- * was loading is not missed.
+ * A draft, its errors or the index: kept current when the server says the job changed. A draft
+ * (`data-patch`) asks the server which elements changed since the version it shows and makes
+ * just those the same as the new ones, node by node (text, attributes, or a node of another kind
+ * replaced), keeping what is at the top of the window where it is; anything else, or a patch that
+ * does not fit the page, reloads the page, keeping the scroll position. On connecting, the server
+ * tells a draft's page the job's version: a save made while the page was loading is not missed.
  */
 export const RELOAD_SCRIPT = `(() => {
   const me = document.currentScript;
   const job = me.dataset.job || '';
-  const mine = Number(me.dataset.version);
+  const patching = me.dataset.patch === '1';
+  let mine = Number(me.dataset.version);
+  let wanted = mine;
+  let busy = false;
   const key = 'packsmith-scroll:' + location.pathname;
   const y = sessionStorage.getItem(key);
   if (y !== null) { sessionStorage.removeItem(key); window.scrollTo(0, Number(y)); }
   const es = new EventSource('/events' + (job ? '?job=' + encodeURIComponent(job) : ''));
+  const reload = () => {
+    sessionStorage.setItem(key, String(window.scrollY));
+    es.close();
+    location.reload();
+  };
+  // the element with an id at the top of the window, and where it is: kept there by the update
+  const anchor = () => {
+    for (let el = document.elementFromPoint(innerWidth / 2, 1); el; el = el.parentElement) {
+      if (el.id) return { id: el.id, top: el.getBoundingClientRect().top };
+    }
+    return null;
+  };
+  // make the old element the same as the new one (parsed from the new HTML), touching only what
+  // differs, so the browser styles and lays out again just that; a node of another kind is replaced
+  // whole, and so are the children of an element whose number of children changed
+  const same = (a, b) => a.nodeType === b.nodeType && a.nodeName === b.nodeName && a.namespaceURI === b.namespaceURI;
+  const morph = (old, now) => {
+    if (old.nodeType !== 1) {
+      if (old.nodeValue !== now.nodeValue) old.nodeValue = now.nodeValue;
+      return;
+    }
+    const oa = old.attributes;
+    const na = now.attributes;
+    let sameAttributes = oa.length === na.length;
+    for (let i = 0; sameAttributes && i < na.length; i++) sameAttributes = oa[i].name === na[i].name && oa[i].value === na[i].value;
+    if (!sameAttributes) {
+      for (const a of [...oa]) if (!now.hasAttributeNS(a.namespaceURI, a.localName)) old.removeAttributeNS(a.namespaceURI, a.localName);
+      for (const a of na) if (old.getAttributeNS(a.namespaceURI, a.localName) !== a.value) old.setAttributeNS(a.namespaceURI, a.name, a.value);
+    }
+    const was = [...old.childNodes];
+    const is = [...now.childNodes];
+    if (was.length !== is.length) { old.replaceChildren(...is); return; }
+    is.forEach((n, i) => {
+      if (was[i].isEqualNode(n)) return; // the browser's own comparison, far quicker than walking it here
+      if (same(was[i], n)) morph(was[i], n); else old.replaceChild(n, was[i]);
+    });
+  };
+  const apply = (replace) => {
+    const swaps = [];
+    for (const r of replace) {
+      const old = document.getElementById(r.id);
+      const t = document.createElement('template');
+      t.innerHTML = r.html;
+      const el = t.content.firstChild;
+      if (!old || t.content.childNodes.length !== 1 || !el || el.id !== r.id) return false;
+      swaps.push([old, el]);
+    }
+    const at = anchor();
+    for (const [old, el] of swaps) { if (same(old, el)) morph(old, el); else old.replaceWith(el); }
+    const now = at && document.getElementById(at.id);
+    if (now) window.scrollBy(0, now.getBoundingClientRect().top - at.top);
+    return true;
+  };
+  const update = async () => {
+    if (busy) return;
+    busy = true;
+    try {
+      while (wanted !== mine) {
+        const r = await fetch('/job/' + encodeURIComponent(job) + '/patch?from=' + mine, { cache: 'no-store' });
+        const p = r.ok ? await r.json() : { reload: true };
+        if (p.reload || !apply(p.replace)) return reload();
+        mine = p.version;
+        if (wanted < mine) wanted = mine;
+        const line = document.getElementById('ps-draft');
+        if (line) line.textContent = p.line;
+      }
+    } catch {
+      reload();
+    } finally {
+      busy = false;
+    }
+  };
   es.addEventListener('reload', (e) => {
     let told = null;
     try { told = JSON.parse(e.data); } catch { told = null; }
     if (job && told && told.version === mine) return;
-    sessionStorage.setItem(key, String(window.scrollY));
-    es.close();
-    location.reload();
+    if (!patching || !told || told.version < 0) return reload();
+    wanted = told.version;
+    update();
   });
 })();`;
 

@@ -18,6 +18,7 @@ import { combinedHash, fileHashes } from '../archive/hash.js';
 import type { LocatedError } from '../load/raw.js';
 import type { Project } from '../model/validate.js';
 import type { Assessment, Summary } from '../calc/types.js';
+import { pagePatch, parsePage, type ParsedPage, type Replacement } from './patch.js';
 
 export interface Draft {
   project: Project;
@@ -43,7 +44,19 @@ export interface LiveJob {
   theme: string | null;
   /** milliseconds the last render took */
   renderMs: number;
+  /** the last few drafts' HTML by version, so an open page can be brought up to date in place */
+  shown: Shown[];
 }
+
+/** A draft as rendered, and its elements with an id once asked for (null: not plain enough to patch). */
+interface Shown {
+  version: number;
+  html: string;
+  parsed?: ParsedPage | null;
+}
+
+/** How many past drafts of a job are kept for patching (a page further behind is loaded again). */
+const KEEP_SHOWN = 4;
 
 export interface LiveJobsOptions {
   /** a folder of job folders, or one job folder */
@@ -104,7 +117,7 @@ export class LiveJobs {
     for (const dir of folders) {
       const name = basename(dir);
       if (this.jobs.has(name)) continue;
-      this.jobs.set(name, { name, dir, version: 0, inputHash: '', title: name, files: new Map(), draft: null, errors: [], theme: null, renderMs: 0 });
+      this.jobs.set(name, { name, dir, version: 0, inputHash: '', title: name, files: new Map(), draft: null, errors: [], theme: null, renderMs: 0, shown: [] });
       added.push(name);
     }
     return added;
@@ -134,6 +147,9 @@ export class LiveJobs {
   render(name: string): boolean {
     const job = this.jobs.get(name);
     if (!job) return false;
+    // a second report of the same save (an editor writing in steps, a watcher telling twice) costs
+    // a read and a hash, not a load, check and render that would hold up the page's update
+    if (job.version > 0 && job.inputHash !== '' && !this.stale(name)) return false;
     const t0 = performance.now();
     const loaded = loadJob(job.dir, { today: today() });
     const inputHash = combinedHash(fileHashes(loaded.raw.files));
@@ -157,7 +173,26 @@ export class LiveJobs {
     }
     job.version += 1;
     job.renderMs = performance.now() - t0;
+    job.shown = job.draft ? [...job.shown, { version: job.version, html: job.draft.html }].slice(-KEEP_SHOWN) : [];
     return true;
+  }
+
+  /**
+   * What turns a page showing draft `from` of a job into its current draft: the elements to
+   * replace, or null when the page must be loaded again (a draft no longer kept, an error page on
+   * either side, a change the patch cannot carry).
+   */
+  patch(name: string, from: number): { version: number; replace: Replacement[] } | null {
+    const job = this.jobs.get(name);
+    const now = job?.shown.at(-1);
+    if (!job || !now || now.version !== job.version) return null;
+    if (from === now.version) return { version: now.version, replace: [] };
+    const then = job.shown.find((s) => s.version === from);
+    if (!then) return null;
+    const a = parsedOf(then);
+    const b = parsedOf(now);
+    const replace = a && b ? pagePatch(a, b) : null;
+    return replace ? { version: now.version, replace } : null;
   }
 
   private draftOf(project: Project, assessment: Assessment, job: LiveJob): Draft {
@@ -195,6 +230,8 @@ export class LiveJobs {
     rmSync(this.scratch, { recursive: true, force: true });
   }
 }
+
+const parsedOf = (s: Shown): ParsedPage | null => (s.parsed === undefined ? (s.parsed = parsePage(s.html)) : s.parsed);
 
 export class NoChromium extends Error {
   constructor() {

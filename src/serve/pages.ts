@@ -32,11 +32,14 @@ button.plain{background:#fff;color:#0b4f8a}
 .notice{background:#eef6ee;border:1px solid #7aa77a;padding:.5em .75em;border-radius:3px}
 @media (max-width:480px){body{padding:0 .6rem 3rem}.grid{grid-template-columns:1fr 1fr}.hint{display:none}}`;
 
-/** What a page shows: a job's draft of some version, or every job (null); it reloads when that changes. */
-type Shows = { job: string | null; version: number };
+/**
+ * What a page shows: a job's draft or errors of some version, or every job (null); it is brought
+ * up to date when that changes, in place where `patch` (a draft), else by loading it again.
+ */
+type Shows = { job: string | null; version: number; patch?: boolean };
 
 const reloadScript = (nonce: string, shows: Shows): Html =>
-  html`<script nonce="${nonce}" data-job="${shows.job ?? ''}" data-version="${shows.version}">${trusted(RELOAD_SCRIPT)}</script>`;
+  html`<script nonce="${nonce}" data-job="${shows.job ?? ''}" data-version="${shows.version}" data-patch="${shows.patch ? '1' : '0'}">${trusted(RELOAD_SCRIPT)}</script>`;
 
 /** A page; `shows` adds the script that reloads it when what it shows changes. */
 function page(title: string, nonce: string, body: Html, shows?: Shows): string {
@@ -62,10 +65,13 @@ ${site.archiveSite ? html`<p><a href="/site/index.html">The archive site</a> (bu
 ${site.archive ? html`<p><a href="/archive/">The archive folder</a> (issued revisions)</p>` : ''}`, { job: null, version: 0 });
 }
 
+/** The draft's version, as the bar shows it. */
+export const draftLine = (job: LiveJob): string => `Draft ${job.version}, rendered in ${Math.round(job.renderMs)} ms`;
+
 /** A bar on top of a served draft: not part of the pack, never printed. */
 function draftBar(job: LiveJob, nonce: string, saved: string | null): string {
   return html`<style nonce="${nonce}">.ps-serve{font:14px/1.4 "DejaVu Sans",sans-serif;display:flex;flex-wrap:wrap;gap:.3rem 1rem;padding:.5rem 1rem;background:#f1f4f6;border-bottom:1px solid #c9d0d6}@media print{.ps-serve{display:none}}</style>
-<nav class="ps-serve" aria-label="packsmith serve"><a href="/">All jobs</a><a href="${jobPath(job.name)}record">Record a test session</a><a href="${jobPath(job.name)}pack.pdf">PDF</a><span>Draft ${job.version}, rendered in ${Math.round(job.renderMs)} ms</span>${saved ? html`<strong role="status">Saved ${saved}</strong>` : ''}</nav>`.text;
+<nav class="ps-serve" aria-label="packsmith serve"><a href="/">All jobs</a><a href="${jobPath(job.name)}record">Record a test session</a><a href="${jobPath(job.name)}pack.pdf">PDF</a><span id="ps-draft">${draftLine(job)}</span>${saved ? html`<strong role="status">Saved ${saved}</strong>` : ''}</nav>`.text;
 }
 
 /** Give every style element of a page the response's nonce. */
@@ -79,7 +85,7 @@ export function draftPage(job: LiveJob, nonce: string, saved: string | null = nu
   const open = /<body[^>]*>/.exec(text);
   const bar = draftBar(job, nonce, saved);
   text = open ? text.slice(0, open.index + open[0].length) + bar + text.slice(open.index + open[0].length) : bar + text;
-  const script = reloadScript(nonce, { job: job.name, version: job.version }).text;
+  const script = reloadScript(nonce, { job: job.name, version: job.version, patch: true }).text;
   const close = text.lastIndexOf('</body>');
   return close >= 0 ? text.slice(0, close) + script + text.slice(close) : text + script;
 }

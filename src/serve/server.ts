@@ -10,7 +10,7 @@ import { Events } from './events.js';
 import { guard, isLoopback } from './guard.js';
 import { contentType, fileInside } from './files.js';
 import { watchPaths, type Watcher } from './watch.js';
-import { draftPage, errorsPage, formPage, indexPage, messagePage, nonceStyles } from './pages.js';
+import { draftLine, draftPage, errorsPage, formPage, indexPage, messagePage, nonceStyles } from './pages.js';
 import { saveSession, type SessionInput } from './session.js';
 import { READING_COLUMNS, type ReadingField } from '../model/schema.js';
 import { NO_CHROMIUM_HELP } from '../print/browser.js';
@@ -172,6 +172,12 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
     if (rest === '/' && req.method !== 'POST') {
       const saved = new URL(req.url ?? '/', 'http://x').searchParams.get('saved');
       return sendPage(req, res, 200, draftPage(job, nonce, saved && /^readings\/[\w.-]+\.csv$/.test(saved) ? saved : null), nonce);
+    }
+    if (rest === '/patch' && req.method !== 'POST') {
+      // what an open draft of version `from` swaps to show the current one (or: load the page again)
+      const from = Number(new URL(req.url ?? '/', 'http://x').searchParams.get('from'));
+      const patch = Number.isInteger(from) ? jobs.patch(job.name, from) : null;
+      return send(req, res, 200, JSON.stringify(patch ? { ...patch, line: draftLine(job) } : { reload: true }), 'application/json; charset=utf-8');
     }
     if (rest === '/pack.pdf' && req.method !== 'POST') {
       if (!job.draft) return sendPage(req, res, 409, errorsPage(job, nonce), nonce);

@@ -82,12 +82,32 @@ describe('packsmith serve in Chromium', () => {
     expect(await text(page)).toContain('measured Zs 9.9 Ω');
   });
 
-  it('follows a readings file edited on disk: the open draft reloads by itself with the new value', async () => {
-    const reloaded = page.waitForNavigation({ waitUntil: 'load' });
+  it('follows a readings file edited on disk: the open draft updates in place, where it is scrolled, to exactly the page loaded afresh', async () => {
+    const refused: string[] = []; // the browser reports each thing the page's policy refuses on the console
+    page.on('console', (m) => { if (/Content Security Policy/i.test(m.text())) refused.push(m.text()); });
+    const circuit = 'circuit-DB-A-1';
+    const topOf = () => page.evaluate((id) => document.getElementById(id)!.getBoundingClientRect().top, circuit);
+    await page.evaluate((id) => { document.getElementById(id)!.scrollIntoView(); (window as { kept?: number }).kept = 1; }, circuit);
+    const top = await topOf();
     edit(job, 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,9.9', 'DB-A,1,0.9,>999,>999,500,ok,0.73');
-    await reloaded;
-    await page.waitForFunction(() => document.body.innerText.includes('measured Zs 0.73 Ω'));
+    await page.waitForFunction((id) => document.getElementById(id)?.textContent?.includes('measured Zs 0.73 Ω'), {}, circuit);
+    expect(await page.evaluate(() => (window as { kept?: number }).kept)).toBe(1); // not loaded again
+    expect(Math.abs((await topOf()) - top)).toBeLessThan(2); // the circuit stays where it was in the window
+    expect(await page.$eval('#ps-draft', (el) => el.textContent)).toMatch(/^Draft \d+, rendered in \d+ ms$/);
     await shot(page, '2-draft-after-edit-desktop');
+
+    // the same document as the draft loaded afresh (leaving out the served page's own bar, script and styles)
+    const fresh = await browser.newPage();
+    await fresh.setViewport(DESKTOP);
+    await fresh.goto(page.url(), { waitUntil: 'load' });
+    const body = (p: Page) => p.evaluate(() => {
+      const b = document.body.cloneNode(true) as HTMLElement;
+      b.querySelectorAll('script, style, nav.ps-serve').forEach((e) => e.remove());
+      return b.innerHTML;
+    });
+    expect(await body(page)).toBe(await body(fresh));
+    await fresh.close();
+    expect(refused).toEqual([]);
   });
 
   it('records a session at desktop width: only the readings that apply, an invalid cell shown at its field, then saved', async () => {

@@ -94,6 +94,24 @@ describe('packsmith serve over HTTP', () => {
     expect((await call(s.port, '/job/pack-job/')).body).toContain('measured Zs 0.73 Ω');
   });
 
+  it('tells an open draft which elements to swap for the new version, behind the same guard', async () => {
+    const draft = await call(s.port, '/job/pack-job/');
+    expect(draft.body).toContain('data-patch="1"');
+    const v = s.jobs.get('pack-job')!.version;
+    const none = await call(s.port, `/job/pack-job/patch?from=${v}`);
+    expect(none.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(none.headers['x-content-type-options']).toBe('nosniff');
+    expect(JSON.parse(none.body)).toEqual({ version: v, replace: [], line: expect.stringMatching(new RegExp(`^Draft ${v}, `)) });
+    edit(job, 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,0.73', 'DB-A,1,0.9,>999,>999,500,ok,0.74');
+    // asked before the watcher reports the save, the job is rendered first (it is stale)
+    const patch = JSON.parse((await call(s.port, `/job/pack-job/patch?from=${v}`)).body) as { version: number; replace: { id: string; html: string }[] };
+    expect(patch.version).toBe(v + 1);
+    expect(patch.replace.find((r) => r.id === 'circuit-DB-A-1')?.html).toContain('measured Zs 0.74 Ω');
+    expect(JSON.parse((await call(s.port, '/job/pack-job/patch?from=x')).body)).toEqual({ reload: true });
+    expect((await call(s.port, `/job/pack-job/patch?from=${v}`, { headers: { host: `evil.example:${s.port}` } })).status).toBe(421);
+    expect((await call(s.port, `/job/pack-job/patch?from=${v}`, { headers: { origin: 'http://evil.example' } })).status).toBe(403);
+  });
+
   it('shows a job\'s errors, located, instead of its pack', async () => {
     edit(job, 'readings/2026-03-06.csv', 'DB-A,3,0.2,1.5', 'DB-A,3,0,2,1.5');
     for (let i = 0; i < 600 && !s.jobs.get('pack-job')!.errors.length; i++) await new Promise((r) => setTimeout(r, 50));
@@ -112,6 +130,7 @@ describe('packsmith serve beyond loopback', () => {
       expect(s.token).toMatch(/^[A-Za-z0-9_-]{32}$/);
       expect(s.url).toContain(`?token=${s.token}`);
       expect((await call(s.port, '/')).status).toBe(401);
+      expect((await call(s.port, '/job/pack-job/patch?from=1')).status).toBe(401);
       const first = await call(s.port, `/?token=${s.token}`);
       expect(first.status).toBe(303);
       const cookie = String(first.headers['set-cookie']).split(';')[0]!;
