@@ -6,7 +6,7 @@ import { significant } from '../model/units.js';
 import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { minimumFaultEnergy } from './checks/adiabatic.js';
-import { design as designOf } from './design/index.js';
+import { design as designOf, lengthDesign, type LengthFree } from './design/index.js';
 import { designFault } from './design/fault.js';
 import { kFor } from './design/k-factor.js';
 import { breakingLevel } from './fault-level.js';
@@ -29,10 +29,10 @@ const round = (n: number, places: number): number => Number(n.toFixed(places));
  * The parts of a circuit's context that its length changes: the design table, the drop from the
  * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
  */
-function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number) {
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number, lengthFree?: LengthFree) {
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const maker = makerIa(device, requiredS, circuit.device_ia_a);
-  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
+  const design = lengthFree ? lengthDesign(circuit, rules, lengthFree) : designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
   const vdOrigin = originDrop(design.vd, site?.source);
   const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
   const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
@@ -45,7 +45,7 @@ function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, 
  */
 export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
   const circuit = { ...ctx.circuit, length_m: lengthM };
-  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s) };
+  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s, ctx.design) };
 }
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
