@@ -18,7 +18,7 @@ import { originDrop } from './tree/origin.js';
 import { carry } from './tree/carry.js';
 import { fedBoards } from './tree/build.js';
 import { boardQuery, type BoardQuery } from './tree/query.js';
-import { longestRun, runWords } from './design/max-length.js';
+import { longestRun, runWords, Trials } from './design/max-length.js';
 import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
@@ -131,9 +131,10 @@ export function assess(project: Project): Assessment {
     const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
     // the longest run and what would pass are found under the rule set's own values
     const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
-    const run = longestRun((l) => atLength(strictCtx, l), circuit.length_m);
+    const trials = new Trials((l) => atLength(strictCtx, l));
+    const run = longestRun(trials, circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
-    const runBasis = runWords(run, (l) => atLength(strictCtx, l), circuit.length_m)
+    const runBasis = runWords(run, trials, circuit.length_m)
       + (site.feeds ? ` (its own checks only: a longer run also raises Zdb and the drop at ${site.feeds.board}, whose circuits are not judged again here)` : '');
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
@@ -145,7 +146,7 @@ export function assess(project: Project): Assessment {
       max_length_basis: runBasis,
       checks: CHECKS.map(([id, check]): CheckResult => {
         const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, (l) => atLength(strictCtx, l)) : null;
+        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
         const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),

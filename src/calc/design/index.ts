@@ -7,6 +7,7 @@ import { capacityOf, type CapacityResult } from './capacity.js';
 import { operatingTemp } from './conductor.js';
 import { r1r2, sourceImpedance, type R1R2, type SourceImpedance } from './impedance.js';
 import { voltageDrop, type VoltageDrop } from './voltage-drop.js';
+import { withBasis } from '../basis.js';
 
 export interface Design {
   capacity: CapacityResult;
@@ -40,7 +41,7 @@ export function lengthDesign(circuit: Circuit, rules: Rules, base: LengthFree): 
   const hot = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, theta);
   const cold = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, 20);
   const { source } = base;
-  const zs = hot && source ? { ohm: source.ohm + hot.ohm, basis: `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω` } : null;
+  const zs = hot && source ? withBasis({ ohm: source.ohm + hot.ohm }, () => `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω`) : null;
   return {
     capacity: base.capacity,
     r1r2Hot: hot,
