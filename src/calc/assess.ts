@@ -6,7 +6,7 @@ import { significant } from '../model/units.js';
 import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { minimumFaultEnergy } from './checks/adiabatic.js';
-import { design as designOf } from './design/index.js';
+import { design as designOf, lengthDesign, type LengthFree } from './design/index.js';
 import { designFault } from './design/fault.js';
 import { kFor } from './design/k-factor.js';
 import { breakingLevel } from './fault-level.js';
@@ -18,7 +18,7 @@ import { originDrop } from './tree/origin.js';
 import { carry } from './tree/carry.js';
 import { fedBoards } from './tree/build.js';
 import { boardQuery, type BoardQuery } from './tree/query.js';
-import { longestRun, runWords } from './design/max-length.js';
+import { longestRun, runWords, Trials } from './design/max-length.js';
 import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
@@ -29,10 +29,10 @@ const round = (n: number, places: number): number => Number(n.toFixed(places));
  * The parts of a circuit's context that its length changes: the design table, the drop from the
  * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
  */
-function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number) {
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number, lengthFree?: LengthFree) {
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const maker = makerIa(device, requiredS, circuit.device_ia_a);
-  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
+  const design = lengthFree ? lengthDesign(circuit, rules, lengthFree) : designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
   const vdOrigin = originDrop(design.vd, site?.source);
   const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
   const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
@@ -45,7 +45,7 @@ function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, 
  */
 export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
   const circuit = { ...ctx.circuit, length_m: lengthM };
-  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s) };
+  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s, ctx.design) };
 }
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
@@ -131,9 +131,10 @@ export function assess(project: Project): Assessment {
     const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
     // the longest run and what would pass are found under the rule set's own values
     const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
-    const run = longestRun((l) => atLength(strictCtx, l), circuit.length_m);
+    const trials = new Trials((l) => atLength(strictCtx, l));
+    const run = longestRun(trials, circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
-    const runBasis = runWords(run, (l) => atLength(strictCtx, l), circuit.length_m)
+    const runBasis = runWords(run, trials, circuit.length_m)
       + (site.feeds ? ` (its own checks only: a longer run also raises Zdb and the drop at ${site.feeds.board}, whose circuits are not judged again here)` : '');
     const asOf = stages(ctx, project.rows);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
@@ -145,7 +146,7 @@ export function assess(project: Project): Assessment {
       max_length_basis: runBasis,
       checks: CHECKS.map(([id, check]): CheckResult => {
         const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, (l) => atLength(strictCtx, l)) : null;
+        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
         const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),

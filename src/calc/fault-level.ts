@@ -5,6 +5,7 @@
 // more than the measured prospective fault current nor than Cmax × U0 / Zdb (Ze where no Zdb).
 import type { Board, Circuit, Supply } from '../model/schema.js';
 import { fmt } from '../model/units.js';
+import { withBasis } from './basis.js';
 
 /** IEC 60909-0 Table 1: maximum voltage factor for LV systems with a +10 % tolerance (from memory) */
 export const CMAX = 1.1;
@@ -30,9 +31,9 @@ export function breakingLevel(circuit: Pick<Circuit, 'phases'>, board: Board, su
 export function earthFaultMax(board: Board, supply: Supply, u0: number): Level | null {
   const pfc = board.pfc_ka ?? supply.pfc_ka;
   const z = board.zdb_ohm ?? supply.ze_ohm;
-  const zWords = board.zdb_ohm !== undefined ? `Zdb ${fmt(board.zdb_ohm)} Ω` : `Ze ${fmt(supply.ze_ohm ?? 0)} Ω`;
-  const byZ = z !== undefined && z > 0 ? { amps: (CMAX * u0) / z, basis: `Cmax ${CMAX} × U0 ${u0} V / ${zWords} = ${fmt((CMAX * u0) / z)} A (IEC 60909-0)` } : null;
-  const byPfc = pfc !== undefined ? { amps: pfc * 1000, basis: `prospective fault current ${fmt(pfc)} kA measured ${board.pfc_ka !== undefined ? `at ${board.id}` : 'at the origin'}` } : null;
+  const zWords = () => (board.zdb_ohm !== undefined ? `Zdb ${fmt(board.zdb_ohm)} Ω` : `Ze ${fmt(supply.ze_ohm ?? 0)} Ω`);
+  const byZ = z !== undefined && z > 0 ? withBasis({ amps: (CMAX * u0) / z }, () => `Cmax ${CMAX} × U0 ${u0} V / ${zWords()} = ${fmt((CMAX * u0) / z)} A (IEC 60909-0)`) : null;
+  const byPfc = pfc !== undefined ? withBasis({ amps: pfc * 1000 }, () => `prospective fault current ${fmt(pfc)} kA measured ${board.pfc_ka !== undefined ? `at ${board.id}` : 'at the origin'}`) : null;
   if (byZ && byPfc) return byZ.amps < byPfc.amps ? byZ : byPfc;
   return byZ ?? byPfc;
 }

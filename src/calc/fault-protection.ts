@@ -6,6 +6,7 @@
 import { fmt } from '../model/units.js';
 import { TOUCH_VOLTAGE_LIMIT_V } from '../reference/touch-voltage.js';
 import type { CircuitContext } from './types.js';
+import { withBasis } from './basis.js';
 
 export interface FaultProtection {
   by: 'rcd' | 'overcurrent';
@@ -18,18 +19,14 @@ export interface FaultProtection {
 export function faultProtection(ctx: Pick<CircuitContext, 'circuit' | 'supply' | 'derived' | 'maxZsBasis'>): FaultProtection {
   const { circuit, supply, derived } = ctx;
   if (supply.earthing === 'TT' && circuit.rcd_ma !== undefined) {
-    const limit = TOUCH_VOLTAGE_LIMIT_V / (circuit.rcd_ma / 1000);
-    return {
-      by: 'rcd',
-      limit_ohm: limit,
-      basis: `TT supply, fault protection by the ${fmt(circuit.rcd_ma)} mA RCD: Zs × IΔn ≤ ${TOUCH_VOLTAGE_LIMIT_V} V, so Zs ≤ ${TOUCH_VOLTAGE_LIMIT_V} V / ${fmt(circuit.rcd_ma)} mA = ${fmt(limit)} Ω (IEC 60364-4-41, 411.5.3)`,
-    };
+    const ma = circuit.rcd_ma;
+    const limit = TOUCH_VOLTAGE_LIMIT_V / (ma / 1000);
+    return withBasis({ by: 'rcd' as const, limit_ohm: limit },
+      () => `TT supply, fault protection by the ${fmt(ma)} mA RCD: Zs × IΔn ≤ ${TOUCH_VOLTAGE_LIMIT_V} V, so Zs ≤ ${TOUCH_VOLTAGE_LIMIT_V} V / ${fmt(ma)} mA = ${fmt(limit)} Ω (IEC 60364-4-41, 411.5.3)`);
   }
-  return {
-    by: 'overcurrent',
-    limit_ohm: derived.max_zs_ohm,
-    basis: derived.max_zs_ohm === null
-      ? `fault protection by the overcurrent device; ${ctx.maxZsBasis}`
-      : `fault protection by the overcurrent device: max Zs ${fmt(derived.max_zs_ohm)} Ω for ${ctx.maxZsBasis}`,
-  };
+  const max = derived.max_zs_ohm;
+  const { maxZsBasis } = ctx;
+  return withBasis({ by: 'overcurrent' as const, limit_ohm: max }, () => (max === null
+    ? `fault protection by the overcurrent device; ${maxZsBasis}`
+    : `fault protection by the overcurrent device: max Zs ${fmt(max)} Ω for ${maxZsBasis}`));
 }

@@ -11,8 +11,9 @@ import { fmt } from '../model/units.js';
 import { CAPACITY_SIZES_MM2 } from '../reference/capacity.js';
 import type { DeviceCode } from '../reference/device-codes.js';
 import { sizesOf } from './design/conductor.js';
-import { boardShare, longestRun, metres, PASSES, type Meets } from './design/max-length.js';
+import { boardShare, longestRun, metres, PASSES, type Meets, type Trials } from './design/max-length.js';
 import type { Check, CircuitContext } from './types.js';
+import { numbersOnly } from './basis.js';
 
 /** The circuit as it would be with some fields changed. */
 export type Changed = (change: Partial<Circuit>) => CircuitContext;
@@ -82,17 +83,18 @@ const BY_LENGTH = new Set(['voltage-drop', 'zs-design', 'disconnection', 'adiaba
 const ENDS_FAILURE: Meets = (s) => s !== 'fail';
 
 /** One plain line: what would make the failing check pass, or null where the check did not fail or is not a design check. */
-export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed, atLength: (lengthM: number) => CircuitContext): string | null {
+export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed, trials: Trials): string | null {
   if (check(ctx).status !== 'fail') return null;
   const tried = candidates(id, ctx);
   if (tried.length === 0 && !BY_LENGTH.has(id)) return null;
   const found = (meets: Meets): string[] => {
     const options: string[] = [];
     if (BY_LENGTH.has(id)) {
-      const run = longestRun(atLength, ctx.circuit.length_m, [check], meets);
+      const run = longestRun(trials, ctx.circuit.length_m, [check], meets);
       if (run.length_m !== null && run.length_m < ctx.circuit.length_m) options.push(`a run of at most ${metres(run.length_m)} (now ${fmt(ctx.circuit.length_m)} m)`);
     }
-    const other = tried.find((k) => meets(check(changed(k.change)).status));
+    // only the status of each change tried is read
+    const other = tried.find((k) => meets(numbersOnly(() => check(changed(k.change))).status));
     if (other) options.push(other.words);
     return options;
   };

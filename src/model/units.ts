@@ -161,7 +161,38 @@ function example(q: Quantity): string {
 export function fmt(n: number, sig = 3): string {
   if (!Number.isFinite(n)) return String(n);
   if (Math.abs(n) >= 10 ** sig) return String(Math.round(n));
-  return String(Number(n.toPrecision(sig)));
+  return String(toSignificant(n, sig));
+}
+
+/** 10^i for i = 0…22, each exact (5^22 < 2^53), built by multiplication so no library rounding enters. */
+const POW10: readonly number[] = Array.from({ length: 23 }).reduce<number[]>((p, _, i) => [...p, i === 0 ? 1 : p[i - 1]! * 10], []);
+
+/**
+ * Number(n.toPrecision(sig)), the same double, without formatting and parsing a string (basis
+ * lines call it thousands of times per job). n is scaled to `sig` digits before the point by an
+ * exact power of ten, rounded half up on its magnitude (as toPrecision rounds), and scaled back
+ * by one correctly rounded operation of two exact numbers, which gives the double nearest the
+ * decimal, as parsing does. The one scaling product or quotient may be off by half an ulp: where
+ * that could move the rounding (a fraction within 1e-9 of one half) or the power of ten is not
+ * exact, toPrecision itself answers.
+ */
+export function toSignificant(n: number, sig = 3): number {
+  const a = Math.abs(n);
+  if (a === 0 || !Number.isFinite(a) || sig < 1 || sig > 6) return Number(n.toPrecision(sig));
+  let k = sig - 1 - Math.floor(Math.log10(a));
+  for (let tries = 0; tries < 2; tries++) {
+    if (k > 22 || k < -22) break;
+    const scaled = k >= 0 ? a * POW10[k]! : a / POW10[-k]!;
+    // log10 may be one out near a power of ten: the scaled value must have `sig` digits before the point
+    if (scaled < POW10[sig - 1]!) { k++; continue; }
+    if (scaled >= POW10[sig]!) { k--; continue; }
+    const frac = scaled - Math.floor(scaled);
+    if (Math.abs(frac - 0.5) < 1e-9) break;
+    const digits = Math.floor(scaled) + (frac > 0.5 ? 1 : 0);
+    const m = k >= 0 ? digits / POW10[k]! : digits * POW10[-k]!;
+    return n < 0 ? -m : m;
+  }
+  return Number(n.toPrecision(sig));
 }
 
 /** Whether a unit (as written in a column header) is one of the quantity's. */
@@ -170,7 +201,7 @@ export function unitFits(unit: string, q: Quantity): boolean {
 }
 
 /** A number kept to `sig` significant digits, for derived values in JSON (317 A, 0.0253 s). */
-export const significant = (n: number, sig = 3): number => Number(n.toPrecision(sig));
+export const significant = (n: number, sig = 3): number => toSignificant(n, sig);
 
 export function symbolOf(q: Quantity): string {
   return QUANTITIES[q].symbol;

@@ -33,34 +33,42 @@ export interface Engine {
 /** Property names Handlebars and JavaScript probe on any object; not fields of the view. */
 const PROBED = new Set(['toHTML', 'toJSON', 'then', 'inspect', 'length']);
 
-const paths = new WeakMap<object, string>();
-const proxies = new WeakMap<object, object>();
-
-const objectGuard: ProxyHandler<Record<PropertyKey, unknown>> = {
-  get(target, key) {
-    const v = target[key];
-    if (v === undefined && typeof key === 'string' && !(key in target) && !PROBED.has(key)) {
-      throw new Error(`the template reads "${key}", which ${paths.get(target)} does not have (it has: ${Object.keys(target).join(', ') || 'nothing'})`);
-    }
-    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}.${key}`)) : v;
-  },
-};
-const arrayGuard: ProxyHandler<unknown[]> = {
-  get(target, key) {
-    const v = (target as unknown as Record<PropertyKey, unknown>)[key];
-    return typeof v === 'object' && v !== null && typeof key === 'string' ? (proxies.get(v) ?? guarded(v, `${paths.get(target)}[${key}]`)) : v;
-  },
-};
-
-/** The view behind a guard: reading a field it does not have throws, naming the field's path. */
+/**
+ * The view behind a guard: reading a field it does not have throws, naming the field's path. Each
+ * object met is wrapped once per render; its path and proxy are kept in Maps dropped with the
+ * render (a pack's view holds thousands of objects: WeakMaps would keep the collector busy).
+ */
 export function guarded<T>(value: T, path = 'view'): T {
   if (value === null || typeof value !== 'object') return value;
-  const known = proxies.get(value as object);
-  if (known) return known as T;
-  paths.set(value as object, path);
-  const p = Array.isArray(value) ? new Proxy(value, arrayGuard) : new Proxy(value as Record<PropertyKey, unknown>, objectGuard);
-  proxies.set(value as object, p);
-  return p as T;
+  const paths = new Map<object, string>();
+  const proxies = new Map<object, object>();
+  /** the value read at `key` of `parent`, wrapped where it is an object */
+  const wrap = (v: unknown, parent: object, key: string, array: boolean): unknown => {
+    if (typeof v !== 'object' || v === null) return v;
+    return proxies.get(v) ?? guard(v, array ? `${paths.get(parent)}[${key}]` : `${paths.get(parent)}.${key}`);
+  };
+  const objectGuard: ProxyHandler<Record<PropertyKey, unknown>> = {
+    get(target, key) {
+      const v = target[key];
+      if (v === undefined && typeof key === 'string' && !(key in target) && !PROBED.has(key)) {
+        throw new Error(`the template reads "${key}", which ${paths.get(target)} does not have (it has: ${Object.keys(target).join(', ') || 'nothing'})`);
+      }
+      return typeof key === 'string' ? wrap(v, target, key, false) : v;
+    },
+  };
+  const arrayGuard: ProxyHandler<unknown[]> = {
+    get(target, key) {
+      const v = (target as unknown as Record<PropertyKey, unknown>)[key];
+      return typeof key === 'string' ? wrap(v, target, key, true) : v;
+    },
+  };
+  const guard = (v: object, at: string): object => {
+    paths.set(v, at);
+    const p = Array.isArray(v) ? new Proxy(v, arrayGuard) : new Proxy(v as Record<PropertyKey, unknown>, objectGuard);
+    proxies.set(v, p);
+    return p;
+  };
+  return guard(value, path) as T;
 }
 
 const where = (file: string): string => {

@@ -13,10 +13,11 @@ import { letThrough, type Energy, type LetThroughInputs } from '../design/let-th
 import { earthFaultMax } from '../fault-level.js';
 import { rcdBreakTime } from '../devices/rcd.js';
 import { notVerified, result, worst } from './result.js';
+import { said, withBasis, type Words } from '../basis.js';
 
 const id = 'adiabatic';
 
-interface Part { status: Status; words: string; energy: Energy | null }
+interface Part { status: Status; words: Words; energy: Energy | null }
 
 /** What the circuit and the job say about the device's let-through. */
 function inputsOf(ctx: CircuitContext): LetThroughInputs {
@@ -31,29 +32,32 @@ function inputsOf(ctx: CircuitContext): LetThroughInputs {
 }
 
 /** The let-through at a current and how it compares with k²S². */
-function judgeAt(ctx: CircuitContext, what: string, currentA: number, k2s2: number): Part {
+function judgeAt(ctx: CircuitContext, what: Words, currentA: number, k2s2: number): Part {
   const { circuit, supply } = ctx;
-  const at = `${what} ${fmt(currentA)} A`;
+  // the words are formed only where the result's basis is read (see ../basis.ts)
+  const at = () => `${said(what)} ${fmt(currentA)} A`;
   // TT with an RCD giving fault protection: it breaks within its time at this residual current
   if (supply.earthing === 'TT' && circuit.rcd_ma !== undefined) {
     const t = rcdBreakTime(circuit.rcd_ma, circuit.rcd_type, currentA);
     if (t) {
       const e = currentA ** 2 * t.time_s;
-      const energy = { i2t_a2s: e, basis: `I²t ≤ ${fmt(currentA)}² × ${t.time_s} s = ${fmt(e)} A²s (${t.basis})` };
-      if (e <= k2s2) return { status: 'pass', words: `${at}: ${energy.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy };
+      const energy = withBasis({ i2t_a2s: e }, () => `I²t ≤ ${fmt(currentA)}² × ${t.time_s} s = ${fmt(e)} A²s (${t.basis})`);
+      if (e <= k2s2) return { status: 'pass', words: () => `${at()}: ${energy.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy };
     }
   }
   const lt = letThrough({ code: circuit.device, rating_a: circuit.rating_a }, currentA, inputsOf(ctx));
-  if (!lt.bound) return { status: 'not-verified', words: `${at}: the device is not known to operate at this current`, energy: null };
-  if (lt.bound.i2t_a2s <= k2s2) return { status: 'pass', words: `${at}: ${lt.bound.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy: lt.bound };
-  if (!lt.beyondCurve) return { status: 'fail', words: `${at}: ${lt.bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: lt.bound };
-  if (lt.better) {
-    const ok = lt.better.i2t_a2s <= k2s2;
-    const status: Status = ok ? 'pass' : lt.better.from === 'maker' ? 'fail' : 'attention';
-    const why = !ok && lt.better.from === 'class' ? ' (the class limit is a ceiling: the maker\'s let-through at this fault level may be lower)' : '';
-    return { status, words: `${at}: ${lt.better.basis} ${ok ? '≤' : '>'} k²S² ${fmt(k2s2)} A²s${why}`, energy: lt.better };
+  const bound = lt.bound;
+  if (!bound) return { status: 'not-verified', words: () => `${at()}: the device is not known to operate at this current`, energy: null };
+  if (bound.i2t_a2s <= k2s2) return { status: 'pass', words: () => `${at()}: ${bound.basis} ≤ k²S² ${fmt(k2s2)} A²s`, energy: bound };
+  if (!lt.beyondCurve) return { status: 'fail', words: () => `${at()}: ${bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: bound };
+  const better = lt.better;
+  if (better) {
+    const ok = better.i2t_a2s <= k2s2;
+    const status: Status = ok ? 'pass' : better.from === 'maker' ? 'fail' : 'attention';
+    const why = !ok && better.from === 'class' ? ' (the class limit is a ceiling: the maker\'s let-through at this fault level may be lower)' : '';
+    return { status, words: () => `${at()}: ${better.basis} ${ok ? '≤' : '>'} k²S² ${fmt(k2s2)} A²s${why}`, energy: better };
   }
-  return { status: 'attention', words: `${at}: let-through not known (${lt.unknown}); ${lt.bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: null };
+  return { status: 'attention', words: () => `${at()}: let-through not known (${lt.unknown}); ${bound.basis} > k²S² ${fmt(k2s2)} A²s`, energy: null };
 }
 
 /**
@@ -70,19 +74,20 @@ export function minimumFaultEnergy(ctx: CircuitContext): Energy | null {
 export const adiabatic: Check = (ctx): CheckResult => {
   const { circuit, fault, board, supply, rules } = ctx;
   if (!fault.known) return notVerified(id, `no design fault current: ${fault.why}`);
-  if (!fault.device_known) return notVerified(id, `${fault.basis}; the device library has no characteristic for ${fault.opener}, and no device_ia_a from the maker`);
-  if (fault.time_s === null || fault.time_s > ADIABATIC_LIMIT_S) {
-    return result(id, 'fail', `${fault.basis}: ${fault.opener} ${fault.time_s === null ? 'is not known to operate' : `takes ${fmt(fault.time_s)} s`}; the adiabatic equation needs disconnection within ${ADIABATIC_LIMIT_S} s (IEC 60364-5-54, 543.1.2)`, { value: circuit.cpc_mm2, unit: 'mm2' });
+  if (!fault.device_known) return notVerified(id, () => `${fault.basis}; the device library has no characteristic for ${fault.opener}, and no device_ia_a from the maker`);
+  const time = fault.time_s;
+  if (time === null || time > ADIABATIC_LIMIT_S) {
+    return result(id, 'fail', () => `${fault.basis}: ${fault.opener} ${time === null ? 'is not known to operate' : `takes ${fmt(time)} s`}; the adiabatic equation needs disconnection within ${ADIABATIC_LIMIT_S} s (IEC 60364-5-54, 543.1.2)`, { value: circuit.cpc_mm2, unit: 'mm2' });
   }
   const k = kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable);
   const k2s2 = (k.k * circuit.cpc_mm2) ** 2;
-  const parts = [judgeAt(ctx, `${fault.basis}; minimum fault current`, fault.current_a, k2s2)];
+  const parts = [judgeAt(ctx, () => `${fault.basis}; minimum fault current`, fault.current_a, k2s2)];
   const max = earthFaultMax(board, supply, rules.u0_v);
   if (!max) parts.push({ status: 'not-verified', words: 'maximum fault current not known: no prospective fault current, Zdb or Ze recorded', energy: null });
-  else if (max.amps > fault.current_a) parts.push(judgeAt(ctx, `maximum earth fault current at ${board.id} (${max.basis})`, max.amps, k2s2));
+  else if (max.amps > fault.current_a) parts.push(judgeAt(ctx, () => `maximum earth fault current at ${board.id} (${max.basis})`, max.amps, k2s2));
   const status = worst(parts.map((p) => p.status));
   const needed = parts.map((p) => (p.energy ? Math.sqrt(p.energy.i2t_a2s) / k.k : 0)).reduce((a, b) => Math.max(a, b), 0);
   return result(id, status,
-    `${parts.map((p) => p.words).join('; ')}; k²S² with ${k.basis} and cpc ${fmt(circuit.cpc_mm2)} mm² (IEC 60364-5-54, 543.1.2)`,
+    () => `${parts.map((p) => said(p.words)).join('; ')}; k²S² with ${k.basis} and cpc ${fmt(circuit.cpc_mm2)} mm² (IEC 60364-5-54, 543.1.2)`,
     { value: circuit.cpc_mm2, limit: needed > 0 ? Number(needed.toFixed(3)) : null, unit: 'mm2' });
 };

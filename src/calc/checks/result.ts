@@ -2,18 +2,19 @@
 import type { CheckId, CheckResult, Status } from '../types.js';
 import { fmt, type Reading } from '../../model/units.js';
 import type { Measured } from '../../model/readings.js';
+import { withBasis, type Words } from '../basis.js';
 
 export function result(
-  id: CheckId, status: Status, basis: string,
+  id: CheckId, status: Status, basis: Words,
   numbers: { value?: number | null; limit?: number | null; unit?: string | null; date?: string; over_range?: boolean } = {},
 ): CheckResult {
-  const r: CheckResult = { id, status, value: numbers.value ?? null, limit: numbers.limit ?? null, unit: numbers.unit ?? null, basis };
+  const r: CheckResult = withBasis({ id, status, value: numbers.value ?? null, limit: numbers.limit ?? null, unit: numbers.unit ?? null }, basis);
   if (numbers.date !== undefined) r.date = numbers.date;
   if (numbers.over_range) r.over_range = true;
   return r;
 }
 
-export const notVerified = (id: CheckId, why: string): CheckResult => result(id, 'not-verified', why);
+export const notVerified = (id: CheckId, why: Words): CheckResult => result(id, 'not-verified', why);
 export const notApplicable = (id: CheckId, why: string): CheckResult => result(id, 'n/a', why);
 
 /** A reading that cannot be judged: missing, not tested, or n/a where a value is needed. */

@@ -10,9 +10,9 @@ export const voltageDropCheck: Check = ({ design, vdOrigin }) => {
   if (!design.vd) return notVerified(id, 'no conductor resistance for this size and material in IEC 60228');
   const own = design.vd;
   const origin = vdOrigin === undefined ? { percent: own.percent, legs: [] } : vdOrigin;
-  if (origin === null) return notVerified(id, `${own.basis}; the drop of a feeding circuit between the origin and this board is not known`);
+  if (origin === null) return notVerified(id, () => `${own.basis}; the drop of a feeding circuit between the origin and this board is not known`);
   const limit = design.vdLimit.percent;
   const ok = origin.percent <= limit;
-  const words = origin.legs.length === 0 ? own.basis : `${own.basis}; ${originWords(origin, own.percent)}`;
-  return result(id, ok ? 'pass' : 'fail', `${words} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: Number(origin.percent.toFixed(2)), limit, unit: '%' });
+  const words = () => (origin.legs.length === 0 ? own.basis : `${own.basis}; ${originWords(origin, own.percent)}`);
+  return result(id, ok ? 'pass' : 'fail', () => `${words()} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: Number(origin.percent.toFixed(2)), limit, unit: '%' });
 };

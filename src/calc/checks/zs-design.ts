@@ -10,15 +10,17 @@ export const zsDesign: Check = (ctx) => {
   const id = 'zs-design';
   const { design } = ctx;
   if (!design.source) return notVerified(id, 'no Ze for the supply and no Zdb for the board: the design Zs cannot be found');
-  if (!design.zs) return notVerified(id, 'no conductor resistance for these sizes in IEC 60228');
+  const zs = design.zs;
+  if (!zs) return notVerified(id, 'no conductor resistance for these sizes in IEC 60228');
   const fp = faultProtection(ctx);
-  if (fp.limit_ohm === null) return notVerified(id, `${design.zs.basis}; no limit to compare with: ${fp.basis}`);
-  const ok = design.zs.ohm <= fp.limit_ohm;
-  const words = `${design.zs.basis} ${ok ? '≤' : '>'} ${fmt(fp.limit_ohm)} Ω (${fp.basis})`;
+  const limit = fp.limit_ohm;
+  if (limit === null) return notVerified(id, () => `${zs.basis}; no limit to compare with: ${fp.basis}`);
+  const ok = zs.ohm <= limit;
+  const words = () => `${zs.basis} ${ok ? '≤' : '>'} ${fmt(limit)} Ω (${fp.basis})`;
   // Zdb is Ze plus the impedance up to the board: one below Ze is a reading to query
   const { board, supply } = ctx;
   const odd = ok && board.zdb_ohm !== undefined && supply.ze_ohm !== undefined && board.zdb_ohm < supply.ze_ohm;
-  return result(id, odd ? 'attention' : ok ? 'pass' : 'fail', odd ? `${words}; but Zdb ${fmt(board.zdb_ohm!)} Ω at ${board.id} is below Ze ${fmt(supply.ze_ohm!)} Ω, which is part of it: check the readings` : words, {
-    value: Number(design.zs.ohm.toFixed(3)), limit: Number(fp.limit_ohm.toFixed(3)), unit: 'ohm',
+  return result(id, odd ? 'attention' : ok ? 'pass' : 'fail', odd ? () => `${words()}; but Zdb ${fmt(board.zdb_ohm!)} Ω at ${board.id} is below Ze ${fmt(supply.ze_ohm!)} Ω, which is part of it: check the readings` : words, {
+    value: Number(zs.ohm.toFixed(3)), limit: Number(limit.toFixed(3)), unit: 'ohm',
   });
 };

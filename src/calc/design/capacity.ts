@@ -36,10 +36,20 @@ export interface Capacity {
 
 export type CapacityResult = { ok: true; capacity: Capacity } | { ok: false; field: string; message: string };
 
+/** Each table's keys in ascending order, sorted once (the tables are constants). */
+const sortedKeys = new WeakMap<Readonly<Record<number, number>>, readonly number[]>();
+function keysOf(table: Readonly<Record<number, number>>): readonly number[] {
+  let keys = sortedKeys.get(table);
+  if (!keys) {
+    keys = Object.keys(table).map(Number).sort((a, b) => a - b);
+    sortedKeys.set(table, keys);
+  }
+  return keys;
+}
+
 /** The factor of the first tabulated key at or beyond `x` in the direction that is less favourable. */
 function stepFactor(table: Readonly<Record<number, number>>, x: number): { key: number; factor: number } | null {
-  const keys = Object.keys(table).map(Number).sort((a, b) => a - b);
-  const key = keys.find((k) => k >= x);
+  const key = keysOf(table).find((k) => k >= x);
   return key === undefined ? null : { key, factor: table[key]! };
 }
 
@@ -62,10 +72,10 @@ export function capacity(input: CapacityInput): CapacityResult {
   const reference = ground ? GROUND_REFERENCE_C : AIR_REFERENCE_C;
   const ambient = input.ambient_c ?? reference;
   const ambientTable = (ground ? AMBIENT_GROUND : AMBIENT_AIR)[input.insulation];
-  const lowest = Math.min(...Object.keys(ambientTable).map(Number));
+  const lowest = keysOf(ambientTable)[0]!;
   const step = ambient < lowest ? { key: lowest, factor: ambientTable[lowest]! } : stepFactor(ambientTable, ambient);
   if (!step) {
-    return { ok: false, field: 'ambient_c', message: `found ${ambient} °C; the ${ground ? 'ground' : 'air'} temperature table (IEC 60364-5-52 ${ground ? 'B.52.15' : 'B.52.14'}) ends at ${Math.max(...Object.keys(ambientTable).map(Number))} °C for ${insulationWord}` };
+    return { ok: false, field: 'ambient_c', message: `found ${ambient} °C; the ${ground ? 'ground' : 'air'} temperature table (IEC 60364-5-52 ${ground ? 'B.52.15' : 'B.52.14'}) ends at ${keysOf(ambientTable).at(-1)!} °C for ${insulationWord}` };
   }
   const g = stepFactor(GROUPING_BUNCHED, input.grouped);
   if (!g) {

@@ -6,6 +6,7 @@ import { rcdBreakTime } from '../devices/rcd.js';
 import type { RcdType } from '../../model/schema.js';
 import { fmt } from '../../model/units.js';
 import type { Design } from './index.js';
+import { withBasis, withWords } from '../basis.js';
 
 export type DesignFault =
   | { known: false; why: string }
@@ -40,36 +41,37 @@ export function designFault(design: Design, device: Device, o: FaultOptions): De
   if (!design.zs) {
     return { known: false, why: design.source ? 'no conductor resistance for these sizes in IEC 60228' : 'no Ze for the supply and no Zdb for the board' };
   }
-  const current = (o.u0 * o.cmin) / design.zs.ohm;
-  const basis = `If = U0 ${o.u0} V × Cmin ${o.cmin} / design Zs ${fmt(design.zs.ohm)} Ω = ${fmt(current)} A`;
+  const zs = design.zs.ohm;
+  const current = (o.u0 * o.cmin) / zs;
+  // the words are formed only where they are read: a trial length needs the numbers alone
+  const found = <T extends object>(fields: T, opener: () => string, timeBasis: () => string) =>
+    withWords(withWords(withBasis(fields, () => `If = U0 ${o.u0} V × Cmin ${o.cmin} / design Zs ${fmt(zs)} Ω = ${fmt(current)} A`), 'opener', opener), 'timeBasis', timeBasis);
   if (o.rcd) {
-    const t = rcdBreakTime(o.rcd.ma, o.rcd.type, current);
-    return {
-      known: true, current_a: current, basis, opener: `the ${fmt(o.rcd.ma)} mA RCD`, device_known: true,
+    const { ma } = o.rcd;
+    const t = rcdBreakTime(ma, o.rcd.type, current);
+    return found({
+      known: true as const, current_a: current, device_known: true,
       time_s: t?.time_s ?? null,
-      timeBasis: t ? t.basis : `below IΔn ${o.rcd.ma} mA the RCD need not break`,
-      energy: t ? { i2t_a2s: current ** 2 * t.time_s, basis: `I²t = ${fmt(current)}² × ${t.time_s} s = ${fmt(current ** 2 * t.time_s)} A²s (${t.basis})` } : null,
+      energy: t ? withBasis({ i2t_a2s: current ** 2 * t.time_s }, () => `I²t = ${fmt(current)}² × ${t.time_s} s = ${fmt(current ** 2 * t.time_s)} A²s (${t.basis})`) : null,
       makerIa: null,
-    };
+    }, () => `the ${fmt(ma)} mA RCD`, () => (t ? t.basis : `below IΔn ${ma} mA the RCD need not break`));
   }
-  const opener = `${device.code} ${fmt(device.rating_a)} A`;
+  const opener = () => `${device.code} ${fmt(device.rating_a)} A`;
   if (characteristic(device) === null && o.maker) {
     const m = o.maker;
     const operates = current >= m.ia_a;
-    return {
-      known: true, current_a: current, basis, opener, device_known: true,
+    return found({
+      known: true as const, current_a: current, device_known: true,
       time_s: operates ? m.required_s : null,
-      timeBasis: operates ? `${m.basis}; ${fmt(current)} A ≥ Ia` : `${m.basis}; ${fmt(current)} A < Ia`,
-      energy: operates ? { i2t_a2s: current ** 2 * m.required_s, basis: `I²t ≤ ${fmt(current)}² × ${fmt(m.required_s)} s (${m.basis})` } : null,
+      energy: operates ? withBasis({ i2t_a2s: current ** 2 * m.required_s }, () => `I²t ≤ ${fmt(current)}² × ${fmt(m.required_s)} s (${m.basis})`) : null,
       makerIa: m.ia_a,
-    };
+    }, opener, () => (operates ? `${m.basis}; ${fmt(current)} A ≥ Ia` : `${m.basis}; ${fmt(current)} A < Ia`));
   }
   const device_known = characteristic(device) !== null;
   const time = device_known ? operatingTime(device, current).slowest_s : null;
-  return {
-    known: true, current_a: current, basis, opener, device_known, time_s: time,
-    timeBasis: 'slowest edge of its characteristic',
+  return found({
+    known: true as const, current_a: current, device_known, time_s: time,
     energy: time === null ? null : energyAt(device, current),
     makerIa: null,
-  };
+  }, opener, () => 'slowest edge of its characteristic');
 }

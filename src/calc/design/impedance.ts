@@ -4,6 +4,7 @@
 import type { Material } from '../../reference/conductors.js';
 import { fmt } from '../../model/units.js';
 import { resistance } from './conductor.js';
+import { withBasis } from '../basis.js';
 
 export interface R1R2 {
   ohm: number;
@@ -17,10 +18,9 @@ export function r1r2(material: Material, liveMm2: number, cpcMm2: number, length
   if (r1 === null || r2 === null) return null;
   const perMetre = r1 + r2; // mΩ/m
   const ohm = (perMetre * lengthM) / 1000 / (ring ? 4 : 1);
-  const basis = ring
+  return withBasis({ ohm, theta_c: thetaC }, () => (ring
     ? `R1+R2 = (r1 + r2)/4 = ${fmt(lengthM)} m × ${fmt(perMetre)} mΩ/m / 4 = ${fmt(ohm)} Ω at ${thetaC} °C (ring)`
-    : `R1+R2 = ${fmt(lengthM)} m × (${fmt(r1)} + ${fmt(r2)}) mΩ/m = ${fmt(ohm)} Ω at ${thetaC} °C`;
-  return { ohm, theta_c: thetaC, basis };
+    : `R1+R2 = ${fmt(lengthM)} m × (${fmt(r1)} + ${fmt(r2)}) mΩ/m = ${fmt(ohm)} Ω at ${thetaC} °C`));
 }
 
 export interface SourceImpedance {

@@ -7,6 +7,7 @@ import { capacityOf, type CapacityResult } from './capacity.js';
 import { operatingTemp } from './conductor.js';
 import { r1r2, sourceImpedance, type R1R2, type SourceImpedance } from './impedance.js';
 import { voltageDrop, type VoltageDrop } from './voltage-drop.js';
+import { withBasis } from '../basis.js';
 
 export interface Design {
   capacity: CapacityResult;
@@ -22,15 +23,27 @@ export interface Design {
 
 /** `given`: the loop impedance up to the board as the tree of boards found it (else the board's Zdb or Ze). */
 export function design(circuit: Circuit, board: Board, supply: Supply, rules: Rules, given?: SourceImpedance | null): Design {
+  const lighting = circuit.kind === 'lighting';
+  const limit = lighting ? rules.vd_lighting_percent : rules.vd_other_percent;
+  return lengthDesign(circuit, rules, {
+    capacity: capacityOf(circuit),
+    source: given !== undefined ? given : sourceImpedance(board.zdb_ohm, supply.ze_ohm, board.id),
+    vdLimit: { percent: limit, basis: `${limit} % for ${lighting ? 'lighting' : 'other uses'} (IEC 60364-5-52 Table G.52.1${rules.overrides.includes(lighting ? 'vd_lighting_percent' : 'vd_other_percent') ? ', overridden for this job' : ''})` },
+  });
+}
+
+/** What the circuit's length does not change: kept from the circuit's own design when only the length is tried. */
+export type LengthFree = Pick<Design, 'capacity' | 'source' | 'vdLimit'>;
+
+/** The design of a circuit whose parts that do not depend on its length are already known (`base`, for this circuit at any length). */
+export function lengthDesign(circuit: Circuit, rules: Rules, base: LengthFree): Design {
   const theta = operatingTemp(circuit.insulation);
   const hot = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, theta);
   const cold = r1r2(circuit.conductor, circuit.live_mm2, circuit.cpc_mm2, circuit.length_m, circuit.ring, 20);
-  const source = given !== undefined ? given : sourceImpedance(board.zdb_ohm, supply.ze_ohm, board.id);
-  const zs = hot && source ? { ohm: source.ohm + hot.ohm, basis: `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω` } : null;
-  const lighting = circuit.kind === 'lighting';
-  const limit = lighting ? rules.vd_lighting_percent : rules.vd_other_percent;
+  const { source } = base;
+  const zs = hot && source ? withBasis({ ohm: source.ohm + hot.ohm }, () => `Zs = ${source.words} + ${hot.basis} = ${fmt(source.ohm + hot.ohm)} Ω`) : null;
   return {
-    capacity: capacityOf(circuit),
+    capacity: base.capacity,
     r1r2Hot: hot,
     r1r2Cold: cold,
     source,
@@ -39,6 +52,6 @@ export function design(circuit: Circuit, board: Board, supply: Supply, rules: Ru
       material: circuit.conductor, live_mm2: circuit.live_mm2, length_m: circuit.length_m, ib_a: circuit.ib_a,
       phases: circuit.phases, ring: circuit.ring, theta_c: theta, u0_v: rules.u0_v,
     }),
-    vdLimit: { percent: limit, basis: `${limit} % for ${lighting ? 'lighting' : 'other uses'} (IEC 60364-5-52 Table G.52.1${rules.overrides.includes(lighting ? 'vd_lighting_percent' : 'vd_other_percent') ? ', overridden for this job' : ''})` },
+    vdLimit: base.vdLimit,
   };
 }

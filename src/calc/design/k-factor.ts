@@ -2,6 +2,7 @@
 // k = √( Qc (β + 20) / ρ20 × ln(1 + (θf − θi) / (β + θi)) ).
 import { K_TABULATED, MATERIAL_CONSTANTS, PROTECTIVE_TEMPS } from '../../reference/protective-conductor.js';
 import type { Insulation, Material } from '../../reference/conductors.js';
+import { withBasis } from '../basis.js';
 
 /** the adiabatic equation holds for disconnection within 5 s (IEC 60364-5-54, 543.1.2) */
 export const ADIABATIC_LIMIT_S = 5;
@@ -21,8 +22,6 @@ export function kFor(material: Material, insulation: Insulation, inCable: boolea
   const where = inCable ? 'core' : 'separate';
   const k = K_TABULATED[where][insulation][material];
   const t = PROTECTIVE_TEMPS[where][insulation];
-  return {
-    k,
-    basis: `k ${k} (${material === 'cu' ? 'copper' : 'aluminium'}, ${insulation === 'pvc70' ? 'PVC' : 'XLPE'}, ${inCable ? 'core of the cable' : 'separate conductor'}, ${t.initial_c}→${t.final_c} °C; IEC 60364-5-54 Table ${inCable ? 'A.54.3' : 'A.54.2'})`,
-  };
+  return withBasis({ k },
+    () => `k ${k} (${material === 'cu' ? 'copper' : 'aluminium'}, ${insulation === 'pvc70' ? 'PVC' : 'XLPE'}, ${inCable ? 'core of the cable' : 'separate conductor'}, ${t.initial_c}→${t.final_c} °C; IEC 60364-5-54 Table ${inCable ? 'A.54.3' : 'A.54.2'})`);
 }

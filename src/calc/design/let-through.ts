@@ -11,6 +11,7 @@
 import { breakerType, characteristic, timeAt, type Device } from '../devices/index.js';
 import { ENERGY_CLASS_ICN_KA, ENERGY_CLASS_LIMITS } from '../../reference/energy-classes.js';
 import { fmt } from '../../model/units.js';
+import { withBasis } from '../basis.js';
 
 export interface Energy {
   i2t_a2s: number;
@@ -49,17 +50,22 @@ export function classLimit(device: Device, cls: number | undefined, icnKa: numbe
   const row = ENERGY_CLASS_LIMITS.find((r) => r.type === type && r.cls === cls && device.rating_a > r.above_a && device.rating_a <= r.upto_a);
   if (!row) return `BS EN 60898-1 Annex ZA gives no class ${cls} limit for ${device.code} ${fmt(device.rating_a)} A`;
   const v = row.i2t_a2s[col]!;
-  return { i2t_a2s: v, basis: `energy limiting class ${cls}, Icn ${fmt(icnKa)} kA: I²t ≤ ${fmt(v)} A²s (BS EN 60898-1 Annex ZA)` };
+  return withBasis({ i2t_a2s: v }, () => `energy limiting class ${cls}, Icn ${fmt(icnKa)} kA: I²t ≤ ${fmt(v)} A²s (BS EN 60898-1 Annex ZA)`);
 }
+
+/** The maker's let-through figure. */
+const maker = (a2s: number) => withBasis({ from: 'maker' as const, i2t_a2s: a2s },
+  () => `let-through I²t ${fmt(a2s)} A²s from the maker (let_through_a2s, at the board's prospective fault current)`);
 
 export function letThrough(device: Device, currentA: number, o: LetThroughInputs): LetThrough {
   const c = characteristic(device);
   if (!c) {
     if (o.ia && currentA >= o.ia.ia_a) {
       // only "within the required time" is known: a loose bound, like the one beyond a curve
-      const e = currentA ** 2 * o.ia.within_s;
-      const bound = { i2t_a2s: e, basis: `I²t ≤ ${fmt(currentA)}² × ${fmt(o.ia.within_s)} s = ${fmt(e)} A²s (it opens within ${fmt(o.ia.within_s)} s at ${fmt(o.ia.ia_a)} A and above, the maker's Ia)` };
-      if (o.maker_a2s !== undefined) return { bound, beyondCurve: true, better: { from: 'maker', i2t_a2s: o.maker_a2s, basis: `let-through I²t ${fmt(o.maker_a2s)} A²s from the maker (let_through_a2s, at the board's prospective fault current)` }, unknown: null };
+      const ia = o.ia;
+      const e = currentA ** 2 * ia.within_s;
+      const bound = withBasis({ i2t_a2s: e }, () => `I²t ≤ ${fmt(currentA)}² × ${fmt(ia.within_s)} s = ${fmt(e)} A²s (it opens within ${fmt(ia.within_s)} s at ${fmt(ia.ia_a)} A and above, the maker's Ia)`);
+      if (o.maker_a2s !== undefined) return { bound, beyondCurve: true, better: maker(o.maker_a2s), unknown: null };
       return { bound, beyondCurve: true, better: null, unknown: 'no let_through_a2s from the maker' };
     }
     return { bound: null, beyondCurve: false, better: null, unknown: null };
@@ -69,17 +75,17 @@ export function letThrough(device: Device, currentA: number, o: LetThroughInputs
   const last = c.slowest.points[c.slowest.points.length - 1]!;
   if (currentA < last.current_a) {
     const e = currentA ** 2 * t;
-    return { bound: { i2t_a2s: e, basis: `I²t = ${fmt(currentA)}² × ${fmt(t)} s = ${fmt(e)} A²s (slowest operating time)` }, beyondCurve: false, better: null, unknown: null };
+    return { bound: withBasis({ i2t_a2s: e }, () => `I²t = ${fmt(currentA)}² × ${fmt(t)} s = ${fmt(e)} A²s (slowest operating time)`), beyondCurve: false, better: null, unknown: null };
   }
   const e = currentA ** 2 * last.time_s;
-  const bound = { i2t_a2s: e, basis: `I²t ≤ ${fmt(currentA)}² × ${fmt(last.time_s)} s = ${fmt(e)} A²s (it opens within ${fmt(last.time_s)} s from ${fmt(last.current_a)} A: ${last.source})` };
+  const bound = withBasis({ i2t_a2s: e }, () => `I²t ≤ ${fmt(currentA)}² × ${fmt(last.time_s)} s = ${fmt(e)} A²s (it opens within ${fmt(last.time_s)} s from ${fmt(last.current_a)} A: ${last.source})`);
   if (o.maker_a2s !== undefined) {
-    return { bound, beyondCurve: true, better: { from: 'maker', i2t_a2s: o.maker_a2s, basis: `let-through I²t ${fmt(o.maker_a2s)} A²s from the maker (let_through_a2s, at the board's prospective fault current)` }, unknown: null };
+    return { bound, beyondCurve: true, better: maker(o.maker_a2s), unknown: null };
   }
   if (breakerType(device.code)) {
     const cl = classLimit(device, o.energy_class, o.icn_ka);
     if (typeof cl !== 'string') {
-      if (o.icn_ka !== undefined && currentA <= o.icn_ka * 1000) return { bound, beyondCurve: true, better: { from: 'class', ...cl }, unknown: null };
+      if (o.icn_ka !== undefined && currentA <= o.icn_ka * 1000) return { bound, beyondCurve: true, better: withBasis({ from: 'class' as const, i2t_a2s: cl.i2t_a2s }, () => cl.basis), unknown: null };
       return { bound, beyondCurve: true, better: null, unknown: `the fault current ${fmt(currentA)} A is above the Icn the class limit holds for` };
     }
     return { bound, beyondCurve: true, better: null, unknown: `no let_through_a2s from the maker, and ${cl}` };

@@ -11,6 +11,7 @@ import { fmt } from '../../model/units.js';
 import { adiabatic } from '../checks/adiabatic.js';
 import { voltageDropCheck } from '../checks/voltage-drop.js';
 import { zsDesign } from '../checks/zs-design.js';
+import { numbersOnly } from '../basis.js';
 
 export const LENGTH_CHECKS: readonly Check[] = [zsDesign, voltageDropCheck, adiabatic];
 
@@ -29,6 +30,43 @@ export interface LongestRun {
   beyond: boolean;
   /** the checks that stop passing just beyond the length found (empty when null or beyond) */
   limited_by: string[];
+}
+
+/**
+ * A circuit tried at other lengths. The longest run, the reason there is none and each remedy's
+ * run try many of the same lengths (the same steps from the same own length), and look at each
+ * check's status alone: so each length is worked once, each check judged once there, and both
+ * in numbers only, without the words no one reads (see ../basis.ts).
+ */
+export class Trials {
+  private readonly seen = new Map<number, { ctx: CircuitContext; results: Map<Check, CheckResult> }>();
+
+  constructor(private readonly atLength: AtLength) {}
+
+  private tried(lengthM: number) {
+    let t = this.seen.get(lengthM);
+    if (!t) {
+      t = { ctx: numbersOnly(() => this.atLength(lengthM)), results: new Map() };
+      this.seen.set(lengthM, t);
+    }
+    return t;
+  }
+
+  /** The circuit at this length (its basis lines not worked out). */
+  at(lengthM: number): CircuitContext {
+    return this.tried(lengthM).ctx;
+  }
+
+  /** The check's result at this length: its status, value and limit (its basis line not worked out). */
+  judge(check: Check, lengthM: number): CheckResult {
+    const t = this.tried(lengthM);
+    let r = t.results.get(check);
+    if (!r) {
+      r = numbersOnly(() => check(t.ctx));
+      t.results.set(check, r);
+    }
+    return r;
+  }
 }
 
 /** A length found here, as found (to 0.1 m, rounded down): never rounded up by significant figures. */
@@ -52,9 +90,9 @@ export function boardShare(ctx: CircuitContext, r: CheckResult): string {
  * length meets on its own, with its status at the circuit's own length, and how far the others
  * would allow; or, where each alone is met somewhere, that no one length meets them all.
  */
-export function whyNone(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
-  const own = at(ownLengthM);
-  const alone = checks.map((c) => ({ check: c, result: c(own), run: longestRun(at, ownLengthM, [c]) }));
+export function whyNone(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
+  const own = trials.at(ownLengthM);
+  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), run: longestRun(trials, ownLengthM, [c]) }));
   const never = alone.filter((a) => a.run.length_m === null);
   if (never.length === 0) {
     const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : metres(a.run.length_m!)}`);
@@ -63,15 +101,15 @@ export function whyNone(at: AtLength, ownLengthM: number, checks: readonly Check
   const culprits = never.map((a) => `${nameOf(a.result.id)} passes at no length from ${fmt(FROM_M)} m to ${fmt(TO_M / 1000)} km (${a.result.status} at ${fmt(ownLengthM)} m${boardShare(own, a.result)})`);
   const others = checks.filter((c) => !never.some((a) => a.check === c));
   if (others.length === 0) return culprits.join('; ');
-  const rest = longestRun(at, ownLengthM, others);
-  const allow = rest.length_m === null ? '' : `; ${others.map((c) => nameOf(c(own).id)).join(' and ')} alone would allow ${rest.beyond ? 'beyond 5 km' : `up to ${metres(rest.length_m)}`}`;
+  const rest = longestRun(trials, ownLengthM, others);
+  const allow = rest.length_m === null ? '' : `; ${others.map((c) => nameOf(trials.judge(c, ownLengthM).id)).join(' and ')} alone would allow ${rest.beyond ? 'beyond 5 km' : `up to ${metres(rest.length_m)}`}`;
   return `${culprits.join('; ')}${allow}`;
 }
 
 /** One line for the schedule: what sets the longest run, or why there is none. */
-export function runWords(run: LongestRun, at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
-  if (run.length_m === null) return `none: ${whyNone(at, ownLengthM, checks)}`;
-  if (run.beyond) return `every length up to ${fmt(TO_M)} m meets ${checks.map((c) => nameOf(c(at(ownLengthM)).id)).join(', ')}`;
+export function runWords(run: LongestRun, trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
+  if (run.length_m === null) return `none: ${whyNone(trials, ownLengthM, checks)}`;
+  if (run.beyond) return `every length up to ${fmt(TO_M)} m meets ${checks.map((c) => nameOf(trials.judge(c, ownLengthM).id)).join(', ')}`;
   return `${metres(run.length_m)}, set by ${run.limited_by.map(nameOf).join(' and ')}`;
 }
 
@@ -79,11 +117,8 @@ export function runWords(run: LongestRun, at: AtLength, ownLengthM: number, chec
 export type Meets = (status: Status) => boolean;
 export const PASSES: Meets = (s) => s === 'pass';
 
-export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
-  const passes = (l: number) => {
-    const ctx = at(l);
-    return checks.every((c) => meets(c(ctx).status));
-  };
+export function longestRun(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
+  const passes = (l: number) => checks.every((c) => meets(trials.judge(c, l).status));
   const bracket = (): [number, number] | 'beyond' | null => {
     const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
     if (passes(own)) {
@@ -114,7 +149,6 @@ export function longestRun(at: AtLength, ownLengthM: number, checks: readonly Ch
     const m = (a + b) / 2;
     if (passes(m)) a = m; else b = m;
   }
-  const past = at(b);
-  const limited = checks.map((c) => c(past)).filter((r) => !meets(r.status)).map((r) => r.id);
+  const limited = checks.map((c) => trials.judge(c, b)).filter((r) => !meets(r.status)).map((r) => r.id);
   return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
 }

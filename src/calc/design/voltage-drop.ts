@@ -7,6 +7,7 @@ import type { Material } from '../../reference/conductors.js';
 import { REACTANCE_FROM_MM2, REACTANCE_MOHM_PER_M } from '../../reference/voltage-drop.js';
 import { fmt } from '../../model/units.js';
 import { resistance } from './conductor.js';
+import { withBasis } from '../basis.js';
 
 export interface VoltageDrop {
   volts: number;
@@ -27,8 +28,9 @@ export function voltageDrop(opts: {
   const volts = (b * length * z * opts.ib_a) / 1000;
   const reference = three ? Math.sqrt(3) * opts.u0_v : opts.u0_v;
   const percent = (100 * volts) / reference;
-  const zWords = x ? `√(${fmt(r)}² + ${x}²) mΩ/m` : `${fmt(r)} mΩ/m`;
-  const basis = `${three ? '√3' : '2'} × ${fmt(length)} m${opts.ring ? ' (ring: a quarter of its length)' : ''} × ${zWords} at ${opts.theta_c} °C × Ib ${fmt(opts.ib_a)} A`
-    + ` = ${fmt(volts)} V = ${fmt(percent)} % of ${fmt(reference)} V`;
-  return { volts, percent, basis };
+  return withBasis({ volts, percent }, () => {
+    const zWords = x ? `√(${fmt(r)}² + ${x}²) mΩ/m` : `${fmt(r)} mΩ/m`;
+    return `${three ? '√3' : '2'} × ${fmt(length)} m${opts.ring ? ' (ring: a quarter of its length)' : ''} × ${zWords} at ${opts.theta_c} °C × Ib ${fmt(opts.ib_a)} A`
+      + ` = ${fmt(volts)} V = ${fmt(percent)} % of ${fmt(reference)} V`;
+  });
 }

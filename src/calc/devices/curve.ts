@@ -1,5 +1,6 @@
 // One edge of a device's time-current band: points joined by straight lines in log I – log t,
 // nothing below the first point's current, and a tail beyond the last point. Pure arithmetic.
+import { toSignificant } from '../../model/units.js';
 
 export interface Point {
   current_a: number;
@@ -77,7 +78,7 @@ const at = (p: Point): string => `${show(p.current_a)} A at ${show(p.time_s)} s`
 
 /** Up to 4 significant digits, for basis lines. */
 export function show(n: number): string {
-  return String(Number(n.toPrecision(4)));
+  return String(toSignificant(n, 4));
 }
 
 /** The smallest current at which the edge's time is at most `timeS`, or null where none is. */

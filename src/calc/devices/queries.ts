@@ -3,6 +3,7 @@ import { fmt, significant, type Reading } from '../../model/units.js';
 import { INSTANTANEOUS_TIME_S } from '../../reference/circuit-breakers.js';
 import { currentFor, show, timeAt } from './curve.js';
 import { breakerType, characteristic, type Device } from './lookup.js';
+import { withBasis } from '../basis.js';
 
 export interface MaxZs {
   /** current that operates the device within the required time */
@@ -42,21 +43,15 @@ export function energyAt(device: Device, currentA: number): { i2t_a2s: number; b
   const t = c ? timeAt(c.slowest, currentA) : null;
   if (!c || t === null) return null;
   const i2t = currentA ** 2 * t;
-  const shown = `${show(i2t)} A²s`;
+  const shown = () => `${show(i2t)} A²s`;
   if (breakerType(device.code) && t <= INSTANTANEOUS_TIME_S) {
-    return {
-      i2t_a2s: i2t,
-      basis: `I²t = ${show(currentA)}² × ${INSTANTANEOUS_TIME_S} s = ${shown}: the breaker opens within ${INSTANTANEOUS_TIME_S} s at this current and no current limiting is credited (assumption: a manufacturer's let-through I²t, lower, may replace it)`,
-    };
+    return withBasis({ i2t_a2s: i2t }, () => `I²t = ${show(currentA)}² × ${INSTANTANEOUS_TIME_S} s = ${shown()}: the breaker opens within ${INSTANTANEOUS_TIME_S} s at this current and no current limiting is credited (assumption: a manufacturer's let-through I²t, lower, may replace it)`);
   }
   const last = c.slowest.points[c.slowest.points.length - 1]!;
   if (currentA > last.current_a) {
-    return {
-      i2t_a2s: i2t,
-      basis: `I²t = ${shown}, held at its value at ${show(last.current_a)} A in ${show(last.time_s)} s (${last.source}): the fuse opens faster here and its let-through is taken as no more than that (assumption)`,
-    };
+    return withBasis({ i2t_a2s: i2t }, () => `I²t = ${shown()}, held at its value at ${show(last.current_a)} A in ${show(last.time_s)} s (${last.source}): the fuse opens faster here and its let-through is taken as no more than that (assumption)`);
   }
-  return { i2t_a2s: i2t, basis: `I²t = ${show(currentA)}² × ${show(t)} s = ${shown} (slowest operating time)` };
+  return withBasis({ i2t_a2s: i2t }, () => `I²t = ${show(currentA)}² × ${show(t)} s = ${shown()} (slowest operating time)`);
 }
 
 /**

@@ -3,6 +3,7 @@
 // the next one), nothing promised below IΔn.
 import { RCD_BREAK_TIMES, type RcdKind } from '../../reference/rcd.js';
 import type { RcdType } from '../../model/schema.js';
+import { withBasis } from '../basis.js';
 
 export const rcdKind = (type: RcdType | undefined): RcdKind => (type?.endsWith('-S') ? 'S' : 'general');
 
@@ -11,8 +12,6 @@ export function rcdBreakTime(ratedMa: number, type: RcdType | undefined, current
   const multiple = currentA / (ratedMa / 1000);
   const step = [...RCD_BREAK_TIMES[kind]].reverse().find((l) => multiple >= l.multiple);
   if (!step) return null;
-  return {
-    time_s: step.max_ms / 1000,
-    basis: `the ${ratedMa} mA ${kind === 'S' ? 'time-delayed ' : ''}RCD breaks within ${step.max_ms} ms at ${step.multiple} × IΔn and above (IEC 61008-1 / 61009-1)`,
-  };
+  return withBasis({ time_s: step.max_ms / 1000 },
+    () => `the ${ratedMa} mA ${kind === 'S' ? 'time-delayed ' : ''}RCD breaks within ${step.max_ms} ms at ${step.multiple} × IΔn and above (IEC 61008-1 / 61009-1)`);
 }

@@ -6,7 +6,7 @@ import type { Assessment, CircuitAssessment, CheckResult } from '../../calc/type
 import { treeView } from './tree.js';
 import { circuitKey, type CircuitReadings, type Measured } from '../../model/readings.js';
 import type { MeasuredField } from '../../model/schema.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toSignificant } from '../../model/units.js';
 import { TEST_CHECKS, READING_LABELS, lower } from '../labels.js';
 import { look, worstStatus, type Look } from '../status.js';
 import { bareReading, showReading } from '../values.js';
@@ -99,7 +99,7 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
 export function downTo3(m: number): number {
   if (m <= 0) return m;
   const step = 10 ** (Math.floor(Math.log10(m)) - 2);
-  return Number((Math.floor(m / step + 1e-9) * step).toPrecision(3));
+  return toSignificant(Math.floor(m / step + 1e-9) * step, 3);
 }
 
 function designRow(c: CircuitRecord, a: CircuitAssessment) {
