@@ -7,7 +7,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { PDFOptions } from 'puppeteer-core';
 import { splitPack } from './parts.js';
-import { PdfJoiner, type PageSize } from './join.js';
+import type { PageSize } from './join.js';
+import type { PdfMetadata } from './metadata.js';
 
 /**
  * A pack of more HTML than this prints in parts of about PART_BYTES each (about 170 and 85
@@ -22,10 +23,14 @@ export type PrintFile = (htmlPath: string, options: PDFOptions) => Promise<Uint8
 const EMPTY = '<span></span>';
 
 /** Print `htmlPath` in parts of about `partBytes` and join them; the joined PDF. */
-export async function printInParts(printFile: PrintFile, htmlPath: string, options: PDFOptions, partBytes = PART_BYTES): Promise<Uint8Array> {
+export async function printInParts(
+  printFile: PrintFile, htmlPath: string, options: PDFOptions, meta: PdfMetadata | undefined, partBytes = PART_BYTES,
+): Promise<Uint8Array> {
   const dir = mkdtempSync(join(tmpdir(), 'packsmith-parts-'));
+  const joined = join(dir, 'joined.pdf');
+  const { PdfJoiner } = await import('./join.js'); // pdf-lib, loaded only by a run that prints
+  const joiner = new PdfJoiner(joined);
   try {
-    const joiner = await PdfJoiner.create();
     const parts = splitPack(readFileSync(htmlPath, 'utf8'), partBytes);
     for (const [i, part] of parts.entries()) {
       const path = join(dir, `part-${i + 1}.html`);
@@ -35,9 +40,10 @@ export async function printInParts(printFile: PrintFile, htmlPath: string, optio
     }
     const footer = join(dir, 'footer.html');
     writeFileSync(footer, blankSheets(joiner.sizes()));
-    await joiner.overlay(await printFile(footer, { ...options, headerTemplate: EMPTY, tagged: false, outline: false }));
-    return await joiner.save();
+    await joiner.finish(await printFile(footer, { ...options, headerTemplate: EMPTY, tagged: false, outline: false }), meta);
+    return readFileSync(joined);
   } finally {
+    joiner.abandon();
     rmSync(dir, { recursive: true, force: true });
   }
 }

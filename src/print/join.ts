@@ -2,13 +2,21 @@
 // whole: the pages in order; one tagged structure (the parts' Document elements' children under
 // one Document, the parent tree renumbered, the element ids renumbered in order); one outline
 // built from every part's bookmarks, nested by heading level as Chromium nests them; every
-// part's named destinations, so a link in one part reaches a heading in another; and the
-// running footer ("page N of M") drawn from a print of the footer alone over the whole pack.
+// part's named destinations, so a link in one part reaches a heading in another; the running
+// footer ("page N of M") drawn from a print of the footer alone over the whole pack; and the
+// pack's metadata and data.json (metadata.ts).
+//
+// The joined file is written as the parts arrive: each part's objects are renumbered and written
+// out, and only what the end needs stays in memory (page dictionaries, the parent tree's and
+// outline's entries, ids, destinations). Holding the whole joined document instead took node
+// 0.3 GB for a 500-circuit pack, growing with every part.
+import { closeSync, openSync, writeSync } from 'node:fs';
 import {
-  PDFArray, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFPage, PDFRef, PDFString,
-  beginMarkedContent, endMarkedContent, type PDFContext, type PDFObject, type PDFPageLeaf,
+  PDFArray, PDFContext, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFRawStream, PDFRef, PDFString,
+  decodePDFRawStream, type PDFObject,
 } from 'pdf-lib';
 import { normaliseStructureIds } from './structure-ids.js';
+import { applyMetadata, type PdfMetadata } from './metadata.js';
 
 const N = (n: string) => PDFName.of(n);
 
@@ -18,41 +26,52 @@ export interface PrintedPart {
   headings: number[];
 }
 
-interface Bookmark { title: PDFObject; dest: PDFObject | undefined; level: number }
-
-/** The sizes of the joined pages, in points, for the footer's own print. */
+/** A page's size in points. */
 export type PageSize = { width: number; height: number };
 
+interface Bookmark { title: PDFObject; dest: PDFObject | undefined; level: number }
+interface HeldPage { ref: PDFRef; dict: PDFDict; size: PageSize }
+
+/** The name the running footer's drawing has in each page's resources. */
+const FOOTER = 'PsRunningFooter';
+
 export class PdfJoiner {
-  readonly doc: PDFDocument;
+  private readonly fd: number;
+  private written = 0;
+  /** byte offset of each object, by object number */
+  private readonly offsets: number[] = [];
+  private nextObject = 1;
+  private readonly pagesRef = this.reserve();
+  private readonly documentRef = this.reserve();
+  private readonly pages: HeldPage[] = [];
   private readonly kids: PDFRef[] = [];
-  private readonly parentTree: [number, PDFObject][] = [];
-  private readonly ids: [string, PDFRef][] = [];
+  private readonly parentTree: PDFObject[] = [];
+  private readonly ids: PDFObject[] = [];
   private readonly bookmarks: Bookmark[] = [];
   private readonly dests = new Map<string, PDFObject>();
   private nextKey = 0;
   private lang: PDFObject | undefined;
 
-  private constructor(doc: PDFDocument) {
-    this.doc = doc;
-  }
-
-  static async create(): Promise<PdfJoiner> {
-    return new PdfJoiner(await PDFDocument.create({ updateMetadata: false }));
+  /** Start the joined PDF at `path`. */
+  constructor(path: string) {
+    this.fd = openSync(path, 'w');
+    // the binary comment tells a reader the file holds binary data (ISO 32000-1 §7.5.2)
+    this.write(Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n\n', 'latin1'));
   }
 
   get pageCount(): number {
-    return this.doc.getPageCount();
+    return this.pages.length;
   }
 
   sizes(): PageSize[] {
-    return this.doc.getPages().map((p) => p.getSize());
+    return this.pages.map((p) => p.size);
   }
 
-  /** Append one part's pages, structure, bookmarks and destinations. */
+  /** Append one part's pages, structure, bookmarks and destinations; its other objects are written out. */
   async add(part: PrintedPart): Promise<void> {
     const src = await PDFDocument.load(normaliseStructureIds(part.pdf), { updateMetadata: false });
-    const copier = PDFObjectCopier.for(src.context, this.doc.context);
+    const ctx = this.context();
+    const copier = PDFObjectCopier.for(src.context, ctx);
     const offset = this.nextKey;
     const root = src.catalog.lookupMaybe(N('StructTreeRoot'), PDFDict);
     const docElem = root?.lookupMaybe(N('K'), PDFDict);
@@ -61,31 +80,45 @@ export class PdfJoiner {
     for (const k of partKids) src.context.lookup(k, PDFDict).delete(N('P'));
     this.lang ??= docElem?.get(N('Lang'));
 
+    const held: HeldPage[] = [];
     for (const page of src.getPages()) {
       const ref = copier.copy(page.ref);
-      const node = this.doc.context.lookup(ref) as PDFPageLeaf;
-      shiftKey(node, 'StructParents', offset);
-      const annots = node.lookupMaybe(N('Annots'), PDFArray);
+      const dict = ctx.lookup(ref, PDFDict);
+      shiftKey(dict, 'StructParents', offset);
+      const annots = dict.lookupMaybe(N('Annots'), PDFArray);
       for (let i = 0; annots && i < annots.size(); i++) {
         const a = annots.lookup(i);
         if (a instanceof PDFDict) shiftKey(a, 'StructParent', offset);
       }
-      this.doc.addPage(PDFPage.of(node, ref, this.doc));
+      dict.set(N('Parent'), this.pagesRef);
+      dict.set(N('Resources'), ownResources(ctx, dict.get(N('Resources'))));
+      held.push({ ref, dict, size: page.getSize() });
     }
-    this.kids.push(...partKids.map((k) => copier.copy(k)));
+    for (const k of partKids) {
+      const ref = copier.copy(k);
+      ctx.lookup(ref, PDFDict).set(N('P'), this.documentRef);
+      this.kids.push(ref);
+    }
     if (root) {
-      for (const [key, value] of numberTree(src.context, root.get(N('ParentTree')))) this.parentTree.push([key + offset, copier.copy(value)]);
-      const next = root.lookupMaybe(N('ParentTreeNextKey'), PDFNumber)?.asNumber() ?? 0;
-      this.nextKey = offset + next;
+      for (const [key, value] of numberTree(src.context, root.get(N('ParentTree')))) this.parentTree.push(PDFNumber.of(key + offset), copier.copy(value));
+      this.nextKey = offset + (root.lookupMaybe(N('ParentTreeNextKey'), PDFNumber)?.asNumber() ?? 0);
       for (const [, value] of nameTree(src.context, root.get(N('IDTree')))) {
-        if (value instanceof PDFRef) this.ids.push([String(this.ids.length + 1).padStart(8, '0'), copier.copy(value)]);
+        if (!(value instanceof PDFRef)) continue;
+        // ids renumbered in order through the whole pack (each part's run from node00000001)
+        const id = PDFString.of(`node${String(this.ids.length / 2 + 1).padStart(8, '0')}`);
+        const ref = copier.copy(value);
+        ctx.lookup(ref, PDFDict).set(N('ID'), id);
+        this.ids.push(id, ref);
       }
     }
     this.addBookmarks(src, copier, part.headings);
-    const dests = src.catalog.lookupMaybe(N('Dests'), PDFDict);
-    for (const [name, value] of dests?.entries() ?? []) {
+    for (const [name, value] of src.catalog.lookupMaybe(N('Dests'), PDFDict)?.entries() ?? []) {
       if (!this.dests.has(name.decodeText())) this.dests.set(name.decodeText(), copier.copy(value));
     }
+    // Every object but the pages now goes to the file; a page waits for the running footer.
+    const pageRefs = new Set(held.map((p) => p.ref));
+    this.flush(ctx, (ref) => !pageRefs.has(ref));
+    this.pages.push(...held);
   }
 
   /** The part's bookmarks in order, each with the level of its heading (else its depth in the part's outline). */
@@ -105,53 +138,65 @@ export class PdfJoiner {
     });
   }
 
-  /** Draw page i of `footer` (the running footer alone, printed for every page) over page i. */
-  async overlay(footer: Uint8Array): Promise<void> {
+  /**
+   * Finish the file: page i of `footer` (the running footer alone, printed for every page) drawn
+   * over page i, then the page tree, structure tree, outline, destinations and metadata.
+   */
+  async finish(footer: Uint8Array, meta: PdfMetadata | undefined): Promise<void> {
+    const ctx = this.context();
     const src = await PDFDocument.load(footer, { updateMetadata: false });
-    const pages = this.doc.getPages();
-    if (src.getPageCount() !== pages.length) throw new Error(`the running footer printed ${src.getPageCount()} pages for a pack of ${pages.length}`);
-    const embedded = await this.doc.embedPages(src.getPages());
-    pages.forEach((page, i) => {
-      // an artifact: the footer is not part of the pack's reading order (as in Chromium's own print)
-      page.pushOperators(beginMarkedContent('Artifact'));
-      page.drawPage(embedded[i]!, { x: 0, y: 0 });
-      page.pushOperators(endMarkedContent());
+    if (src.getPageCount() !== this.pages.length) throw new Error(`the running footer printed ${src.getPageCount()} pages for a pack of ${this.pages.length}`);
+    const copier = PDFObjectCopier.for(src.context, ctx);
+    // an artifact: the footer is not part of the pack's reading order (as in Chromium's own print)
+    const before = ctx.register(ctx.flateStream('q\n'));
+    const after = ctx.register(ctx.flateStream(`Q\n/Artifact BMC\nq\n/${FOOTER} Do\nQ\nEMC\n`));
+    src.getPages().forEach((page, i) => {
+      const own = this.pages[i]!;
+      const form = formOf(ctx, copier, page.node);
+      const res = own.dict.get(N('Resources')) as PDFDict;
+      const xobjects = (res.get(N('XObject')) as PDFDict | undefined) ?? ctx.obj({});
+      xobjects.set(N(FOOTER), form);
+      res.set(N('XObject'), xobjects);
+      const contents = own.dict.get(N('Contents'));
+      own.dict.set(N('Contents'), ctx.obj([before, ...(contents instanceof PDFArray ? contents.asArray() : contents ? [contents] : []), after]));
+      ctx.assign(own.ref, own.dict);
     });
-  }
+    ctx.assign(this.pagesRef, ctx.obj({ Type: 'Pages', Kids: this.pages.map((p) => p.ref), Count: this.pages.length }));
 
-  /** The joined document's structure tree, outline and destinations; the bytes. */
-  async save(): Promise<Uint8Array> {
-    const ctx = this.doc.context;
-    const cat = this.doc.catalog;
     const rootRef = ctx.nextRef();
-    const docRef = ctx.register(ctx.obj({ Type: 'StructElem', S: 'Document', P: rootRef, K: this.kids }));
-    if (this.lang) ctx.lookup(docRef, PDFDict).set(N('Lang'), this.lang);
-    for (const k of this.kids) ctx.lookup(k, PDFDict).set(N('P'), docRef);
-    const names: PDFObject[] = [];
-    for (const [id, ref] of this.ids) {
-      const s = PDFString.of(`node${id}`);
-      ctx.lookup(ref, PDFDict).set(N('ID'), s);
-      names.push(s, ref);
-    }
-    const nums: PDFObject[] = this.parentTree.flatMap(([k, v]) => [PDFNumber.of(k), v]);
+    const document = ctx.obj({ Type: 'StructElem', S: 'Document', P: rootRef, K: this.kids });
+    if (this.lang) document.set(N('Lang'), this.lang);
+    ctx.assign(this.documentRef, document);
     ctx.assign(rootRef, ctx.obj({
-      Type: 'StructTreeRoot', K: docRef, ParentTreeNextKey: this.nextKey,
-      ParentTree: ctx.register(ctx.obj({ Nums: nums })), IDTree: ctx.register(ctx.obj({ Names: names })),
+      Type: 'StructTreeRoot', K: this.documentRef, ParentTreeNextKey: this.nextKey,
+      ParentTree: ctx.register(ctx.obj({ Nums: this.parentTree })), IDTree: ctx.register(ctx.obj({ Names: this.ids })),
     }));
+
+    // the catalog and document information, made by pdf-lib as for a pack printed whole
+    const tail = await PDFDocument.create({ updateMetadata: false });
+    if (meta) await applyMetadata(tail, meta);
+    await tail.flush();
+    const made = PDFObjectCopier.for(tail.context, ctx);
+    const catalog = ctx.lookup(made.copy(tail.context.trailerInfo.Root as PDFRef), PDFDict);
+    const info = tail.context.trailerInfo.Info instanceof PDFRef ? made.copy(tail.context.trailerInfo.Info) : undefined;
+    const emptyPages = catalog.get(N('Pages'));
+    if (emptyPages instanceof PDFRef) ctx.delete(emptyPages);
+    catalog.set(N('Pages'), this.pagesRef);
     const dests = ctx.obj({});
     for (const [name, value] of this.dests) dests.set(N(name), value);
-    cat.set(N('Dests'), ctx.register(dests));
-    cat.set(N('MarkInfo'), ctx.obj({ Type: 'MarkInfo', Marked: true }));
-    cat.set(N('StructTreeRoot'), rootRef);
-    if (this.bookmarks.length) cat.set(N('Outlines'), this.outline());
-    cat.set(N('ViewerPreferences'), ctx.obj({ Type: 'ViewerPreferences', DisplayDocTitle: true }));
-    if (this.lang) cat.set(N('Lang'), this.lang);
-    return this.doc.save({ useObjectStreams: false });
+    catalog.set(N('Dests'), ctx.register(dests));
+    catalog.set(N('MarkInfo'), ctx.obj({ Type: 'MarkInfo', Marked: true }));
+    catalog.set(N('StructTreeRoot'), rootRef);
+    if (this.bookmarks.length) catalog.set(N('Outlines'), this.outline(ctx));
+    catalog.set(N('ViewerPreferences'), ctx.obj({ Type: 'ViewerPreferences', DisplayDocTitle: true }));
+    if (this.lang) catalog.set(N('Lang'), this.lang);
+    const catalogRef = ctx.register(catalog);
+    this.flush(ctx, () => true);
+    this.trailer(catalogRef, info);
   }
 
   /** The outline: each bookmark under the nearest one before it of a lower level, all open. */
-  private outline(): PDFRef {
-    const ctx = this.doc.context;
+  private outline(ctx: PDFContext): PDFRef {
     type Node = { dict: PDFDict; ref: PDFRef; level: number; children: Node[] };
     const top: Node = { dict: ctx.obj({ Type: 'Outlines' }), ref: ctx.nextRef(), level: 0, children: [] };
     const stack: Node[] = [top];
@@ -182,6 +227,82 @@ export class PdfJoiner {
     ctx.assign(top.ref, top.dict);
     return top.ref;
   }
+
+  /** A context whose new objects are numbered after every object so far. */
+  private context(): PDFContext {
+    const ctx = PDFContext.create();
+    ctx.largestObjectNumber = this.nextObject - 1;
+    return ctx;
+  }
+
+  private reserve(): PDFRef {
+    return PDFRef.of(this.nextObject++);
+  }
+
+  /** Write the context's objects that `now` accepts (and forget them). */
+  private flush(ctx: PDFContext, now: (ref: PDFRef) => boolean): void {
+    for (const [ref, obj] of ctx.enumerateIndirectObjects()) {
+      if (!now(ref)) continue;
+      const bytes = new Uint8Array(obj.sizeInBytes());
+      obj.copyBytesInto(bytes, 0);
+      this.offsets[ref.objectNumber] = this.written;
+      this.write(Buffer.from(`${ref.objectNumber} 0 obj\n`, 'latin1'));
+      this.write(bytes);
+      this.write(Buffer.from('\nendobj\n\n', 'latin1'));
+      ctx.delete(ref);
+    }
+    this.nextObject = Math.max(this.nextObject, ctx.largestObjectNumber + 1);
+  }
+
+  /** The cross-reference table and trailer (ISO 32000-1 §7.5.4, §7.5.5); closes the file. */
+  private trailer(root: PDFRef, info: PDFRef | undefined): void {
+    const size = this.nextObject;
+    const rows = ['xref', `0 ${size}`, '0000000000 65535 f '];
+    for (let n = 1; n < size; n++) {
+      const at = this.offsets[n];
+      rows.push(at === undefined ? '0000000000 00000 f ' : `${String(at).padStart(10, '0')} 00000 n `);
+    }
+    const start = this.written;
+    this.write(Buffer.from(`${rows.join('\n')}\ntrailer\n<<\n/Size ${size}\n/Root ${root.toString()}${info ? `\n/Info ${info.toString()}` : ''}\n>>\n\nstartxref\n${start}\n%%EOF`, 'latin1'));
+    closeSync(this.fd);
+  }
+
+  private write(bytes: Uint8Array): void {
+    writeSync(this.fd, bytes);
+    this.written += bytes.length;
+  }
+
+  /** Close the file without finishing it (a part failed). */
+  abandon(): void {
+    try {
+      closeSync(this.fd);
+    } catch {
+      /* already closed */
+    }
+  }
+}
+
+/** A page of the footer's print as a form XObject in `ctx`: its content, its resources, its box. */
+function formOf(ctx: PDFContext, copier: PDFObjectCopier, page: PDFDict): PDFRef {
+  const contents = page.lookup(N('Contents'));
+  const streams = contents instanceof PDFArray ? contents.asArray().map((c) => page.context.lookup(c)) : [contents];
+  const decoded = streams.map((s) => (s instanceof PDFRawStream ? decodePDFRawStream(s).decode() : new Uint8Array()));
+  const joined = Buffer.concat(decoded.flatMap((d) => [Buffer.from(d), Buffer.from('\n')]));
+  const box = page.lookup(N('MediaBox'), PDFArray);
+  return ctx.register(ctx.flateStream(joined, {
+    Type: 'XObject', Subtype: 'Form', BBox: copier.copy(box), Resources: copier.copy(page.get(N('Resources'))!),
+  }));
+}
+
+/**
+ * A page's resources, and their XObjects, as dictionaries of the page's own (the running footer
+ * is added to them once every other object has been written).
+ */
+function ownResources(ctx: PDFContext, res: PDFObject | undefined): PDFDict {
+  const own = (res instanceof PDFRef ? ctx.lookupMaybe(res, PDFDict) : res instanceof PDFDict ? res : undefined)?.clone() ?? ctx.obj({});
+  const xobjects = own.get(N('XObject'));
+  if (xobjects instanceof PDFRef) own.set(N('XObject'), ctx.lookup(xobjects, PDFDict).clone());
+  return own;
 }
 
 function refsOf(k: PDFObject | undefined): PDFRef[] {
@@ -201,7 +322,7 @@ function numberTree(ctx: PDFContext, node: PDFObject | undefined): [number, PDFO
   if (!(d instanceof PDFDict)) return [];
   const out: [number, PDFObject][] = [];
   const nums = d.lookupMaybe(N('Nums'), PDFArray);
-  for (let i = 0; nums && i + 1 < nums.size(); i += 2) out.push([(nums.lookup(i, PDFNumber)).asNumber(), nums.get(i + 1)]);
+  for (let i = 0; nums && i + 1 < nums.size(); i += 2) out.push([nums.lookup(i, PDFNumber).asNumber(), nums.get(i + 1)]);
   const kids = d.lookupMaybe(N('Kids'), PDFArray);
   for (let i = 0; kids && i < kids.size(); i++) out.push(...numberTree(ctx, kids.get(i)));
   return out;

@@ -7,6 +7,7 @@ import { statSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page, PDFOptions } from 'puppeteer-core';
 import { PART_BYTES, printInParts, SINGLE_PRINT_BYTES } from './in-parts.js';
+import { setPdfMetadata, type PdfMetadata } from './metadata.js';
 
 export type PaperFormat = 'A4' | 'Letter';
 
@@ -15,6 +16,8 @@ export interface PdfOptions {
   header: string;
   footer: string;
   format?: PaperFormat;
+  /** the PDF's document information and attached files (metadata.ts); none: Chromium's own */
+  metadata?: PdfMetadata;
 }
 
 /** The page.pdf options packsmith prints with (the bench gives bare Chromium the same). */
@@ -120,8 +123,9 @@ export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Pr
       const budget = printBudgetMs(size);
       const work = async () => {
         const options = pdfOptions(opts);
-        const pdf = size > sizes.single ? await printInParts(printFile, htmlPath, options, sizes.part) : await printFile(htmlPath, options);
-        return { pdf, refused };
+        if (size > sizes.single) return { pdf: await printInParts(printFile, htmlPath, options, opts.metadata, sizes.part), refused };
+        const pdf = await printFile(htmlPath, options);
+        return { pdf: opts.metadata ? await setPdfMetadata(pdf, opts.metadata) : pdf, refused };
       };
       return withinBudget(work(), budget, `printing ${htmlPath}`);
     },
