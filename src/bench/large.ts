@@ -20,6 +20,10 @@ export interface LargeJobFigures {
   seconds: number;
   /** peak resident memory of node and Chromium together, MB */
   peakMb: number;
+  /** at that peak, MB by process: node, Chromium's browser, renderer, and its other processes */
+  atPeak: Record<string, number>;
+  /** peak proportional set size of node and Chromium together (pages they share counted once), MB */
+  peakPssMb: number;
 }
 
 /** Build one generated job of `circuits` circuits into a temporary folder; the figures of that build. */
@@ -34,13 +38,15 @@ export async function largeJob(circuits: number, keep = false): Promise<LargeJob
       .catch((e: unknown) => e instanceof Error ? e : new Error(String(e)));
     const seconds = (performance.now() - t0) / 1000;
     const peakMb = mem.stop();
+    const atPeak = mem.atPeak();
+    const peakPssMb = mem.peakPssMb();
     const failed = (why: string) => new Error(`the ${circuits}-circuit job printed no PDF after ${seconds.toFixed(1)} s, peak ${peakMb.toFixed(0)} MB (node + Chromium): ${why}`);
     if (r instanceof Error) throw failed(r.message);
     const pdf = r.built[0]?.pdf;
     if (!pdf) throw failed('no Chromium');
     const { PDFDocument } = await import('pdf-lib');
     const pages = (await PDFDocument.load(readFileSync(pdf), { updateMetadata: false })).getPageCount();
-    return { circuits: job.circuits, boards, pages, seconds, peakMb };
+    return { circuits: job.circuits, boards, pages, seconds, peakMb, atPeak, peakPssMb };
   } finally {
     if (keep) process.stderr.write(`kept ${root}\n`);
     else rmSync(root, { recursive: true, force: true });
@@ -52,7 +58,7 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   const n = Number(values.circuits);
   if (!Number.isInteger(n) || n < 1) throw new Error(`--circuits ${values.circuits}: expected a whole number`);
   largeJob(n, values.keep ?? false).then(
-    (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s, peak ${f.peakMb.toFixed(0)} MB (node + Chromium)\n`),
+    (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s, peak ${f.peakMb.toFixed(0)} MB RSS, ${f.peakPssMb.toFixed(0)} MB PSS (node + Chromium; at the RSS peak, MB: ${Object.entries(f.atPeak).map(([k, v]) => `${k} ${v}`).join(', ')})\n`),
     (e: unknown) => {
       process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);
       process.exitCode = 1;

@@ -11,11 +11,16 @@ import type { PageSize } from './join.js';
 import type { PdfMetadata } from './metadata.js';
 
 /**
- * A pack of more HTML than this prints in parts of about PART_BYTES each (about 170 and 85
- * circuits): a part's print takes Chromium about 0.3 GB per MB of HTML besides its own 0.6 GB.
+ * A pack of more HTML than this (about 170 circuits) prints in parts of about PART_BYTES each
+ * (about 65 circuits). Measured on a 1,000-circuit pack in 1 MB parts on one reused page, the
+ * renderer held 1.2 GB and the whole tree peaked at 2.4 GB; Chromium's browser and utility
+ * processes take about 0.6 GB whatever the pack.
  */
 export const SINGLE_PRINT_BYTES = 2 * 1_048_576;
-export const PART_BYTES = 1_048_576;
+export const PART_BYTES = 768 * 1024;
+
+/** The running footer is printed for this many sheets at a time (800 at once took its renderer 0.6 GB). */
+const FOOTER_SHEETS = 250;
 
 /** Prints one HTML file with these page.pdf options. */
 export type PrintFile = (htmlPath: string, options: PDFOptions) => Promise<Uint8Array>;
@@ -40,7 +45,13 @@ export async function printInParts(
     }
     const footer = join(dir, 'footer.html');
     writeFileSync(footer, blankSheets(joiner.sizes()));
-    await joiner.finish(await printFile(footer, { ...options, headerTemplate: EMPTY, tagged: false, outline: false }), meta);
+    // a few hundred sheets at a time: Chromium's page numbers stay those of the whole document
+    const footers: Uint8Array[] = [];
+    for (let first = 1; first <= joiner.pageCount; first += FOOTER_SHEETS) {
+      const pageRanges = `${first}-${Math.min(joiner.pageCount, first + FOOTER_SHEETS - 1)}`;
+      footers.push(await printFile(footer, { ...options, headerTemplate: EMPTY, tagged: false, outline: false, pageRanges }));
+    }
+    await joiner.finish(footers, meta);
     return readFileSync(joined);
   } finally {
     joiner.abandon();

@@ -139,28 +139,32 @@ export class PdfJoiner {
   }
 
   /**
-   * Finish the file: page i of `footer` (the running footer alone, printed for every page) drawn
+   * Finish the file: page i of `footers` (the running footer alone, printed for every page) drawn
    * over page i, then the page tree, structure tree, outline, destinations and metadata.
    */
-  async finish(footer: Uint8Array, meta: PdfMetadata | undefined): Promise<void> {
+  async finish(footers: Uint8Array[], meta: PdfMetadata | undefined): Promise<void> {
     const ctx = this.context();
-    const src = await PDFDocument.load(footer, { updateMetadata: false });
-    if (src.getPageCount() !== this.pages.length) throw new Error(`the running footer printed ${src.getPageCount()} pages for a pack of ${this.pages.length}`);
-    const copier = PDFObjectCopier.for(src.context, ctx);
     // an artifact: the footer is not part of the pack's reading order (as in Chromium's own print)
     const before = ctx.register(ctx.flateStream('q\n'));
     const after = ctx.register(ctx.flateStream(`Q\n/Artifact BMC\nq\n/${FOOTER} Do\nQ\nEMC\n`));
-    src.getPages().forEach((page, i) => {
-      const own = this.pages[i]!;
-      const form = formOf(ctx, copier, page.node);
-      const res = own.dict.get(N('Resources')) as PDFDict;
-      const xobjects = (res.get(N('XObject')) as PDFDict | undefined) ?? ctx.obj({});
-      xobjects.set(N(FOOTER), form);
-      res.set(N('XObject'), xobjects);
-      const contents = own.dict.get(N('Contents'));
-      own.dict.set(N('Contents'), ctx.obj([before, ...(contents instanceof PDFArray ? contents.asArray() : contents ? [contents] : []), after]));
-      ctx.assign(own.ref, own.dict);
-    });
+    let i = 0;
+    for (const footer of footers) {
+      const src = await PDFDocument.load(footer, { updateMetadata: false });
+      const copier = PDFObjectCopier.for(src.context, ctx);
+      for (const page of src.getPages()) {
+        const own = this.pages[i++];
+        if (!own) break;
+        const form = formOf(ctx, copier, page.node);
+        const res = own.dict.get(N('Resources')) as PDFDict;
+        const xobjects = (res.get(N('XObject')) as PDFDict | undefined) ?? ctx.obj({});
+        xobjects.set(N(FOOTER), form);
+        res.set(N('XObject'), xobjects);
+        const contents = own.dict.get(N('Contents'));
+        own.dict.set(N('Contents'), ctx.obj([before, ...(contents instanceof PDFArray ? contents.asArray() : contents ? [contents] : []), after]));
+        ctx.assign(own.ref, own.dict);
+      }
+    }
+    if (i !== this.pages.length) throw new Error(`the running footer printed ${i} pages for a pack of ${this.pages.length}`);
     ctx.assign(this.pagesRef, ctx.obj({ Type: 'Pages', Kids: this.pages.map((p) => p.ref), Count: this.pages.length }));
 
     const rootRef = ctx.nextRef();

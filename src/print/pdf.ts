@@ -6,7 +6,7 @@
 import { statSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page, PDFOptions } from 'puppeteer-core';
-import { PART_BYTES, printInParts, SINGLE_PRINT_BYTES } from './in-parts.js';
+import { PART_BYTES, printInParts, SINGLE_PRINT_BYTES, type PrintFile } from './in-parts.js';
 import { setPdfMetadata, type PdfMetadata } from './metadata.js';
 
 export type PaperFormat = 'A4' | 'Letter';
@@ -79,11 +79,11 @@ export interface PrintPage {
 export interface PartSizes { single: number; part: number }
 const PART_SIZES: PartSizes = { single: SINGLE_PRINT_BYTES, part: PART_BYTES };
 
-export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Promise<PrintPage> {
+/** A page that loads only the file it prints, with no JavaScript; what it refused, in `refused`. */
+async function guarded(page: Page, refused: string[]): Promise<PrintFile> {
   await page.setJavaScriptEnabled(false);
   await page.setRequestInterception(true);
   let own: string | null = null;
-  let refused: string[] = [];
   let navigation: string | null = null;
   page.on('request', (req) => {
     const url = req.url();
@@ -98,7 +98,7 @@ export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Pr
   const away = (): Error | null =>
     navigation === null ? null : new Error(`the pack ${own} tries to open ${navigation.slice(0, 120)} (a meta refresh or link in a template?); packsmith prints only the pack itself, so it was not printed`);
   /** Load one file and print it (the pack, or one of its parts). */
-  const printFile = async (path: string, options: PDFOptions): Promise<Uint8Array> => {
+  return async (path: string, options: PDFOptions): Promise<Uint8Array> => {
     own = pathToFileURL(path).href;
     navigation = null;
     await page.goto(own, { waitUntil: 'load', timeout: 0 });
@@ -114,18 +114,35 @@ export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Pr
     if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
     return pdf;
   };
+}
+
+export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Promise<PrintPage> {
+  const refused: string[] = [];
+  const printFile = await guarded(page, refused);
+  /**
+   * Each part of a large pack prints on a new page of its own, closed after it: its renderer
+   * process ends with it, so the memory one part's layout took is returned before the next.
+   */
+  const printPart: PrintFile = async (path, options) => {
+    const fresh = await page.browser().newPage();
+    try {
+      return await (await guarded(fresh, refused))(path, options);
+    } finally {
+      await fresh.close();
+    }
+  };
   return {
     page,
     async print(htmlPath, opts) {
-      refused = [];
+      refused.length = 0;
       // Puppeteer's own limits (30 s a step) are lifted; one watchdog scaled to the pack covers the whole print.
       const size = sizeOf(htmlPath);
       const budget = printBudgetMs(size);
       const work = async () => {
         const options = pdfOptions(opts);
-        if (size > sizes.single) return { pdf: await printInParts(printFile, htmlPath, options, opts.metadata, sizes.part), refused };
+        if (size > sizes.single) return { pdf: await printInParts(printPart, htmlPath, options, opts.metadata, sizes.part), refused: [...refused] };
         const pdf = await printFile(htmlPath, options);
-        return { pdf: opts.metadata ? await setPdfMetadata(pdf, opts.metadata) : pdf, refused };
+        return { pdf: opts.metadata ? await setPdfMetadata(pdf, opts.metadata) : pdf, refused: [...refused] };
       };
       return withinBudget(work(), budget, `printing ${htmlPath}`);
     },
