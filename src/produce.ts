@@ -10,7 +10,7 @@ import { BUILTIN_TEMPLATES, type Engine } from './render/engine.js';
 import { renderPackFiles, type RenderedPack } from './render/pack.js';
 import { clearStaleProfiles, launchBrowser, type PrintBrowser } from './print/browser.js';
 import { createPrintPool, type PrintPool } from './print/pool.js';
-import { setPdfMetadata } from './print/metadata.js';
+import type { PdfMetadata } from './print/metadata.js';
 import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
 import { VERSION } from './version.js';
 
@@ -71,8 +71,8 @@ export function packFiles(project: Project, assessment: Assessment, label: PackL
 export async function packPdf(
   printer: Printer, htmlPath: string, project: Project, label: PackLabel, pack: RenderedPack, paper: Paper, dataJson: string,
 ): Promise<Uint8Array> {
-  const { pdf } = await printer.print(htmlPath, { header: pack.header, footer: pack.footer, format: paper });
-  return setPdfMetadata(pdf, {
+  // the metadata goes in as the PDF is made (a large pack's is joined from parts straight to a file)
+  const metadata: PdfMetadata = {
     title: `${project.file.title} — ${label.label}`,
     author: project.file.installer.firm,
     subject: project.name,
@@ -81,7 +81,8 @@ export async function packPdf(
     producer: `packsmith ${VERSION}`,
     creator: 'packsmith',
     attachments: [{ name: 'data.json', bytes: Buffer.from(dataJson), mimeType: 'application/json', description: 'The validated job data and its assessment' }],
-  });
+  };
+  return (await printer.print(htmlPath, { header: pack.header, footer: pack.footer, format: paper, metadata })).pdf;
 }
 
 /** A pool of print pages on one Chromium, started the first time a pack needs printing (a build with nothing to print starts none). */

@@ -9,6 +9,8 @@ import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { pathToFileURL } from 'node:url';
 import { build } from '../build.js';
+import { findChromium } from '../print/browser.js';
+import { lazyPrinter, type Printer } from '../produce.js';
 import { generateArchive } from './generate.js';
 import { sampleTree } from './memory.js';
 
@@ -18,8 +20,14 @@ export interface LargeJobFigures {
   pages: number;
   /** the whole build: load, check, render, print */
   seconds: number;
+  /** the print alone: from the pack handed to the printer to its PDF with metadata */
+  printSeconds: number;
   /** peak resident memory of node and Chromium together, MB */
   peakMb: number;
+  /** at that peak, MB by process: node, Chromium's browser, renderer, and its other processes */
+  atPeak: Record<string, number>;
+  /** peak proportional set size of node and Chromium together (pages they share counted once), MB */
+  peakPssMb: number;
 }
 
 /** Build one generated job of `circuits` circuits into a temporary folder; the figures of that build. */
@@ -28,19 +36,35 @@ export async function largeJob(circuits: number, keep = false): Promise<LargeJob
   const boards = Math.max(1, Math.round(circuits / 40));
   try {
     const job = generateArchive(join(root, 'projects'), 1, 7, { circuits: [circuits, circuits], boards: [boards, boards] });
+    const chromium = findChromium();
+    const printer = chromium ? lazyPrinter(chromium) : null;
+    let printSeconds = 0;
+    const timed: Printer | null = printer && {
+      ...printer,
+      print: async (html, opts) => {
+        const t = performance.now();
+        try {
+          return await printer.print(html, opts);
+        } finally {
+          printSeconds += (performance.now() - t) / 1000;
+        }
+      },
+    };
     const mem = sampleTree(() => process.pid, 100);
     const t0 = performance.now();
-    const r = await build({ jobs: job.jobs, out: join(root, 'out'), progress: { isTTY: false, write: () => true }, log: (l) => process.stderr.write(`${l}\n`) })
+    const r = await build({ jobs: job.jobs, out: join(root, 'out'), printer: timed, progress: { isTTY: false, write: () => true }, log: (l) => process.stderr.write(`${l}\n`) })
       .catch((e: unknown) => e instanceof Error ? e : new Error(String(e)));
     const seconds = (performance.now() - t0) / 1000;
     const peakMb = mem.stop();
+    const atPeak = mem.atPeak();
+    const peakPssMb = mem.peakPssMb();
     const failed = (why: string) => new Error(`the ${circuits}-circuit job printed no PDF after ${seconds.toFixed(1)} s, peak ${peakMb.toFixed(0)} MB (node + Chromium): ${why}`);
     if (r instanceof Error) throw failed(r.message);
     const pdf = r.built[0]?.pdf;
     if (!pdf) throw failed('no Chromium');
     const { PDFDocument } = await import('pdf-lib');
     const pages = (await PDFDocument.load(readFileSync(pdf), { updateMetadata: false })).getPageCount();
-    return { circuits: job.circuits, boards, pages, seconds, peakMb };
+    return { circuits: job.circuits, boards, pages, seconds, printSeconds, peakMb, atPeak, peakPssMb };
   } finally {
     if (keep) process.stderr.write(`kept ${root}\n`);
     else rmSync(root, { recursive: true, force: true });
@@ -52,7 +76,7 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   const n = Number(values.circuits);
   if (!Number.isInteger(n) || n < 1) throw new Error(`--circuits ${values.circuits}: expected a whole number`);
   largeJob(n, values.keep ?? false).then(
-    (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s, peak ${f.peakMb.toFixed(0)} MB (node + Chromium)\n`),
+    (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s (print ${f.printSeconds.toFixed(1)} s), peak ${f.peakMb.toFixed(0)} MB RSS, ${f.peakPssMb.toFixed(0)} MB PSS (node + Chromium; at the RSS peak, MB: ${Object.entries(f.atPeak).map(([k, v]) => `${k} ${v}`).join(', ')})\n`),
     (e: unknown) => {
       process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);
       process.exitCode = 1;

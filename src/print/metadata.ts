@@ -3,6 +3,7 @@
 // are fixed, and in the ids of its structure tree, which are renumbered (structure-ids.ts);
 // title, author (the firm) and subject (the job) are set, and data.json rides along as an
 // embedded file.
+import type { PDFDocument } from 'pdf-lib';
 import { normaliseStructureIds } from './structure-ids.js';
 import { dayOf } from '../model/dates.js';
 
@@ -23,6 +24,12 @@ export interface PdfMetadata {
 export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {
   const { PDFDocument } = await import('pdf-lib'); // loaded only by a run that prints
   const doc = await PDFDocument.load(normaliseStructureIds(pdf), { updateMetadata: false });
+  await applyMetadata(doc, meta);
+  return doc.save();
+}
+
+/** Set a document's information and attach its files. */
+export async function applyMetadata(doc: PDFDocument, meta: PdfMetadata): Promise<void> {
   const when = dayOf(meta.date);
   doc.setTitle(meta.title);
   doc.setAuthor(meta.author);
@@ -35,5 +42,4 @@ export async function setPdfMetadata(pdf: Uint8Array, meta: PdfMetadata): Promis
   for (const a of meta.attachments) {
     await doc.attach(a.bytes, a.name, { mimeType: a.mimeType, description: a.description, creationDate: when, modificationDate: when });
   }
-  return doc.save();
 }

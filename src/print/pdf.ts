@@ -6,6 +6,8 @@
 import { statSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page, PDFOptions } from 'puppeteer-core';
+import { PART_BYTES, printInParts, SINGLE_PRINT_BYTES, type PrintFile } from './in-parts.js';
+import { setPdfMetadata, type PdfMetadata } from './metadata.js';
 
 export type PaperFormat = 'A4' | 'Letter';
 
@@ -14,6 +16,8 @@ export interface PdfOptions {
   header: string;
   footer: string;
   format?: PaperFormat;
+  /** the PDF's document information and attached files (metadata.ts); none: Chromium's own */
+  metadata?: PdfMetadata;
 }
 
 /** The page.pdf options packsmith prints with (the bench gives bare Chromium the same). */
@@ -71,11 +75,15 @@ export interface PrintPage {
   print(htmlPath: string, opts: PdfOptions): Promise<{ pdf: Uint8Array; refused: string[] }>;
 }
 
-export async function preparePage(page: Page): Promise<PrintPage> {
+/** When a pack prints in parts: above `single` bytes of HTML, in parts of about `part` bytes. */
+export interface PartSizes { single: number; part: number }
+const PART_SIZES: PartSizes = { single: SINGLE_PRINT_BYTES, part: PART_BYTES };
+
+/** A page that loads only the file it prints, with no JavaScript; what it refused, in `refused`. */
+async function guarded(page: Page, refused: string[]): Promise<PrintFile> {
   await page.setJavaScriptEnabled(false);
   await page.setRequestInterception(true);
   let own: string | null = null;
-  let refused: string[] = [];
   let navigation: string | null = null;
   page.on('request', (req) => {
     const url = req.url();
@@ -89,27 +97,52 @@ export async function preparePage(page: Page): Promise<PrintPage> {
   });
   const away = (): Error | null =>
     navigation === null ? null : new Error(`the pack ${own} tries to open ${navigation.slice(0, 120)} (a meta refresh or link in a template?); packsmith prints only the pack itself, so it was not printed`);
+  /** Load one file and print it (the pack, or one of its parts). */
+  return async (path: string, options: PDFOptions): Promise<Uint8Array> => {
+    own = pathToFileURL(path).href;
+    navigation = null;
+    await page.goto(own, { waitUntil: 'load', timeout: 0 });
+    let err = away();
+    if (err) throw err;
+    let pdf: Uint8Array;
+    try {
+      pdf = await page.pdf({ ...options, timeout: 0 });
+    } catch (e) {
+      throw away() ?? e; // the refused navigation is the cause worth naming
+    }
+    err = away();
+    if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
+    return pdf;
+  };
+}
+
+export async function preparePage(page: Page, sizes: PartSizes = PART_SIZES): Promise<PrintPage> {
+  const refused: string[] = [];
+  const printFile = await guarded(page, refused);
+  /**
+   * Each part of a large pack prints on a new page of its own, closed after it: its renderer
+   * process ends with it, so the memory one part's layout took is returned before the next.
+   */
+  const printPart: PrintFile = async (path, options) => {
+    const fresh = await page.browser().newPage();
+    try {
+      return await (await guarded(fresh, refused))(path, options);
+    } finally {
+      await fresh.close();
+    }
+  };
   return {
     page,
     async print(htmlPath, opts) {
-      own = pathToFileURL(htmlPath).href;
-      refused = [];
-      navigation = null;
+      refused.length = 0;
       // Puppeteer's own limits (30 s a step) are lifted; one watchdog scaled to the pack covers the whole print.
-      const budget = printBudgetMs(sizeOf(htmlPath));
+      const size = sizeOf(htmlPath);
+      const budget = printBudgetMs(size);
       const work = async () => {
-        await page.goto(own!, { waitUntil: 'load', timeout: 0 });
-        let err = away();
-        if (err) throw err;
-        let pdf: Uint8Array;
-        try {
-          pdf = await page.pdf({ ...pdfOptions(opts), timeout: 0 });
-        } catch (e) {
-          throw away() ?? e; // the refused navigation is the cause worth naming
-        }
-        err = away();
-        if (err || page.url() !== own) throw err ?? new Error(`the pack ${own} left its page for ${page.url()}; it was not printed`);
-        return { pdf, refused };
+        const options = pdfOptions(opts);
+        if (size > sizes.single) return { pdf: await printInParts(printPart, htmlPath, options, opts.metadata, sizes.part), refused: [...refused] };
+        const pdf = await printFile(htmlPath, options);
+        return { pdf: opts.metadata ? await setPdfMetadata(pdf, opts.metadata) : pdf, refused: [...refused] };
       };
       return withinBudget(work(), budget, `printing ${htmlPath}`);
     },
@@ -117,10 +150,10 @@ export async function preparePage(page: Page): Promise<PrintPage> {
 }
 
 /** Print one HTML file on a page of its own; returns the PDF bytes and the requests that were refused. */
-export async function printPdf(browser: Browser, htmlPath: string, opts: PdfOptions): Promise<{ pdf: Uint8Array; refused: string[] }> {
+export async function printPdf(browser: Browser, htmlPath: string, opts: PdfOptions, sizes?: PartSizes): Promise<{ pdf: Uint8Array; refused: string[] }> {
   const page = await browser.newPage();
   try {
-    return await (await preparePage(page)).print(htmlPath, opts);
+    return await (await preparePage(page, sizes)).print(htmlPath, opts);
   } finally {
     await page.close();
   }
