@@ -5,7 +5,7 @@
 // whose ParentTree maps every page's StructParents and every annotation's StructParent, and
 // MarkInfo /Marked true). A small part size makes a small pack print in several parts.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { PDFArray, PDFDict, PDFDocument, PDFName, PDFNumber, PDFRef, PDFString } from 'pdf-lib';
 import { build } from '../../src/build.js';
@@ -15,6 +15,7 @@ import { headingLevels, splitPack } from '../../src/print/parts.js';
 import { pdfInfo, pdfText } from '../helpers/pdf.js';
 import { pdfStructure, type OutlineItem } from '../helpers/pdf-structure.js';
 import { removeTree, scratch } from '../helpers/archive.js';
+import { explainPdfDifference } from '../helpers/pdf-diff.js';
 import { ROOT } from '../helpers/cli.js';
 
 const N = (n: string) => PDFName.of(n);
@@ -198,6 +199,9 @@ describe('a pack printed in parts', () => {
   });
 
   it('gives the same bytes from run to run', () => {
-    expect(Buffer.from(parts).equals(Buffer.from(again))).toBe(true);
+    const [a, b] = [join(out, 'parts.pdf'), join(out, 'again.pdf')];
+    writeFileSync(a, parts);
+    writeFileSync(b, again);
+    expect(Buffer.from(parts).equals(Buffer.from(again)), explainPdfDifference(a, b)).toBe(true);
   });
 });
