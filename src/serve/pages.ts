@@ -59,7 +59,7 @@ export function indexPage(jobs: LiveJob[], nonce: string, site: { archiveSite: b
 <td>${j.draft ? html`${statusWord(j.draft.summary)}<br><span class="muted">${countsText(j.draft.summary)}</span>` : html`<span class="bad">${j.errors.length} problem${j.errors.length === 1 ? '' : 's'} in the job folder</span>`}</td>
 <td><a href="${jobPath(j.name)}">Draft</a> · <a href="${jobPath(j.name)}record">Record a test session</a>${j.draft ? html` · <a href="${jobPath(j.name)}pack.pdf">PDF</a>` : ''}</td></tr>`);
   return page('packsmith serve', nonce, html`<h1>Jobs</h1>
-<p class="muted">Drafts are rendered again whenever a job's files are saved; open pages reload by themselves.</p>
+<p class="muted">Drafts are rendered again whenever a job's files are saved; an open draft brings itself up to date in place.</p>
 ${jobs.length ? html`<table><thead><tr><th>Job</th><th>Draft status</th><th>Open</th></tr></thead><tbody>${rows}</tbody></table>` : html`<p>No job folders (folders holding a project.yaml) here.</p>`}
 ${site.archiveSite ? html`<p><a href="/site/index.html">The archive site</a> (built drafts and issued revisions, as <code>packsmith build</code> left them)</p>` : ''}
 ${site.archive ? html`<p><a href="/archive/">The archive folder</a> (issued revisions)</p>` : ''}`, { job: null, version: 0 });
