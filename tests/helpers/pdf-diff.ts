@@ -63,3 +63,30 @@ export function explainPdfDifference(a: string, b: string): string {
   if (pa.rest !== pb.rest) lines.push(`outside the streams, ${firstDifference(pa.rest, pb.rest)}`);
   return lines.join('\n');
 }
+
+/**
+ * Text drawn in the page flow at a y that is not a whole CSS pixel, as "y (font size)". Chromium
+ * draws the flow under one scale from its device pixels to CSS pixels (the `cm` most text follows)
+ * and snaps most baselines to whole pixels; a baseline a fraction of a pixel off is one Chromium
+ * has been seen to place differently from one print to the next. Drawings (the curves' SVG) sit
+ * under scales of their own and are not counted.
+ */
+export function offPixelFlowText(pdf: Buffer): string[] {
+  const runs: { scale: string; y: string; size: string }[] = [];
+  for (const body of parts(pdf).streams) {
+    let scale = '';
+    let size = '';
+    for (const line of body.split('\n')) {
+      const cm = /^(\S+) 0 0 \S+ \S+ \S+ cm$/.exec(line);
+      if (cm) scale = cm[1]!;
+      const tf = /\/\S+ (\S+) Tf/.exec(line);
+      if (tf) size = tf[1]!;
+      const tm = /^1 0 0 -1 \S+ (\S+) Tm$/.exec(line);
+      if (tm) runs.push({ scale, y: tm[1]!, size });
+    }
+  }
+  const count = new Map<string, number>();
+  for (const r of runs) count.set(r.scale, (count.get(r.scale) ?? 0) + 1);
+  const flow = [...count].sort((a, b) => b[1] - a[1])[0]?.[0];
+  return runs.filter((r) => r.scale === flow && !Number.isInteger(Number(r.y))).map((r) => `${r.y} (${r.size} px)`);
+}
