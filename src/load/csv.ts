@@ -6,7 +6,7 @@
 import { parse } from 'csv-parse/sync';
 import type { LocatedError, RawCell, RawTable } from './raw.js';
 
-type Parsed = { record: string[]; info: { lines: number; bytes: number } };
+type Parsed = { record: string[]; info: { lines: number } };
 
 const LINE_BREAK = /\r\n|\r|\n/g;
 const breaksIn = (s: string): number => s.match(LINE_BREAK)?.length ?? 0;
@@ -42,37 +42,21 @@ function unclosedQuote(text: string, sep: string): { row: number; column: number
   return open;
 }
 
-const OPTIONS = { bom: true, info: true, relax_column_count: true, skip_empty_lines: true } as const;
-
-/** The record delimiter that ends the bytes before `end` (what csv-parse found after the header). */
-function delimiterBefore(bytes: Buffer, end: number): string | undefined {
-  if (bytes[end - 1] === 0x0a) return bytes[end - 2] === 0x0d ? '\r\n' : '\n';
-  return bytes[end - 1] === 0x0d ? '\r' : undefined;
-}
+export const CSV_OPTIONS = { bom: true, info: true, relax_column_count: true, skip_empty_lines: true } as const;
 
 /**
  * The header record, then the records after it, parsed apart. csv-parse compares every record's
  * length with the first one's and, even with relax_column_count, builds an error object for each
  * that differs (a stack trace and a deep copy of its state: a file of 140,000 rows one cell too
  * many took ten times as long to read as a well-formed one). This reader compares each row with
- * the header itself, so the rows are parsed after it, compared by csv-parse with the first row.
- * The second parse goes on with the first one's separator and line ending and from its line, so
- * the records and their lines are those of one parse of the whole file.
+ * the header itself, so the rows are parsed from the line after the header (csv-parse reads the
+ * lines before from_line without making records of them), and compared by csv-parse with the
+ * first row. The records, their lines and any error are those of one parse of the whole file.
  */
-function parseRecords(text: string, sep: string): Parsed[] {
-  const bytes = Buffer.from(text);
-  const [head] = parse(bytes, { ...OPTIONS, delimiter: sep, to: 1 }) as unknown as Parsed[];
-  const end = head?.info.bytes ?? 0;
-  const recordDelimiter = delimiterBefore(bytes, end);
-  if (!head || recordDelimiter === undefined) return head ? [head] : [];
-  let body: Parsed[];
-  try {
-    body = parse(bytes.subarray(end), { ...OPTIONS, bom: false, delimiter: sep, record_delimiter: recordDelimiter }) as unknown as Parsed[];
-  } catch {
-    // csv-parse stops at the first error it throws: the whole file parsed at once names its line
-    return parse(bytes, { ...OPTIONS, delimiter: sep }) as unknown as Parsed[];
-  }
-  return [head, ...body.map((r) => ({ record: r.record, info: { lines: r.info.lines + head.info.lines, bytes: end + r.info.bytes } }))];
+export function parseRecords(text: string, sep: string): Parsed[] {
+  const [head] = parse(text, { ...CSV_OPTIONS, delimiter: sep, to: 1 }) as unknown as Parsed[];
+  if (!head) return [];
+  return [head, ...(parse(text, { ...CSV_OPTIONS, delimiter: sep, from_line: head.info.lines + 1 }) as unknown as Parsed[])];
 }
 
 export function readCsv(file: string, text: string): { table: RawTable; errors: LocatedError[] } {
