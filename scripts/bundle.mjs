@@ -13,6 +13,13 @@ const root = fileURLToPath(new URL('../', import.meta.url));
 const entry = `${root}dist/cli.js`;
 const MARK = '// packsmith, bundled by scripts/bundle.mjs';
 
+/** The transformer's helpers, from scripts/bundle-helpers/ (their package is not installed). */
+const HELPERS = '@oxc-project/runtime/helpers/';
+const helpers = {
+  name: 'packsmith-helpers',
+  resolveId: (id) => (id.startsWith(HELPERS) ? `${root}scripts/bundle-helpers/${id.slice(HELPERS.length)}.mjs` : null),
+};
+
 /** The libraries bundled in: the ones every run of `check` loads. */
 const BUNDLED = ['commander', 'zod', 'yaml', 'csv-parse'];
 const bundled = (id) => BUNDLED.some((name) => id === name || id.startsWith(`${name}/`));
@@ -26,8 +33,9 @@ rmSync(`${root}dist/bundle`, { recursive: true, force: true });
 await build({
   input: entry,
   platform: 'node',
+  plugins: [helpers],
   // a bare import that is not bundled stays an import, resolved from node_modules as before
-  external: (id, importer) => importer !== undefined && !id.startsWith('.') && !id.startsWith('/') && !id.startsWith('\0') && !bundled(id),
+  external: (id, importer) => importer !== undefined && !id.startsWith(HELPERS) && !id.startsWith('.') && !id.startsWith('/') && !id.startsWith('\0') && !bundled(id),
   logLevel: 'warn',
   output: {
     dir: `${root}dist`,

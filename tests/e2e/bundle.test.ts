@@ -3,7 +3,7 @@
 // stdout and stderr and the same exit code, run by run. The unbundled side is dist/program.js, the
 // module tsc wrote and the bundle starts from, run in a process of its own the same way.
 import { describe, expect, it } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -22,6 +22,22 @@ const generated = generateArchive(mkdtempSync(join(tmpdir(), 'packsmith-bundle-'
 describe('the bundled command line', () => {
   it('is the bundle (else the comparisons below would compare the compiled modules with themselves)', () => {
     expect(readFileSync(`${ROOT}dist/cli.js`, 'utf8')).toContain('// packsmith, bundled by scripts/bundle.mjs');
+  });
+
+  it('imports only packages that are installed (what it does not bundle, it loads from node_modules)', () => {
+    const files = [`${ROOT}dist/cli.js`, ...readdirSync(`${ROOT}dist/bundle`).map((f) => `${ROOT}dist/bundle/${f}`)];
+    const bare = new Set<string>();
+    for (const file of files) {
+      // the bundle's own import forms: `from"x"`, `import"x"` and `import("x")`, x a package name
+      for (const m of readFileSync(file, 'utf8').matchAll(/(?:\bfrom\s*|\bimport\s*\(?\s*)"((?!\.)(?:@[\w.-]+\/)?[\w.-]+(?:\/[\w./-]+)?)"/g)) {
+        if (!m[1]!.startsWith('node:')) bare.add(m[1]!);
+      }
+    }
+    expect(bare.size).toBeGreaterThan(0);
+    for (const id of bare) {
+      const pkg = id.split('/').slice(0, id.startsWith('@') ? 2 : 1).join('/');
+      expect(existsSync(`${ROOT}node_modules/${pkg}/package.json`), `${id} (imported by the bundle) is not installed`).toBe(true);
+    }
   });
 
   it.each([
