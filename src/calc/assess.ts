@@ -157,8 +157,9 @@ export function assess(project: Project): Assessment {
       max_length_basis: runBasis,
       checks: CHECKS.map(([id, check]): CheckResult => {
         const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
-        const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
+        // what would pass is shown only on a failure, so it is looked for only there
+        const fix = r.status === 'fail' && REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
+        const withFix = fix ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),
       ...(site.feeds ? {
