@@ -6,8 +6,8 @@ import { significant } from '../model/units.js';
 import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { minimumFaultEnergy } from './checks/adiabatic.js';
-import { design as designOf, lengthDesign, type LengthFree } from './design/index.js';
-import { designFault } from './design/fault.js';
+import { design as designOf, lengthDesign, type Design } from './design/index.js';
+import { designFault, type DesignFault } from './design/fault.js';
 import { kFor } from './design/k-factor.js';
 import { breakingLevel } from './fault-level.js';
 import { stages, traced } from './history.js';
@@ -29,23 +29,34 @@ const round = (n: number, places: number): number => Number(n.toFixed(places));
  * The parts of a circuit's context that its length changes: the design table, the drop from the
  * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
  */
-function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number, lengthFree?: LengthFree) {
+function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, site: CircuitSite | undefined, requiredS: number) {
+  const design = designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
+  return { design, vdOrigin: originDrop(design.vd, site?.source), fault: faultOf(circuit, design, supply, rules, requiredS) };
+}
+
+/** The design earth fault at the far end of the circuit as designed. */
+function faultOf(circuit: Circuit, design: Design, supply: Supply, rules: Rules, requiredS: number): DesignFault {
   const device = { code: circuit.device, rating_a: circuit.rating_a };
   const maker = makerIa(device, requiredS, circuit.device_ia_a);
-  const design = lengthFree ? lengthDesign(circuit, rules, lengthFree) : designOf(circuit, board, supply, rules, site ? designSource(site.source) : undefined);
-  const vdOrigin = originDrop(design.vd, site?.source);
   const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
-  const fault = designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
-  return { design, vdOrigin, fault };
+  return designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
 }
 
 /**
  * The circuit's context with another length: only what the length changes is worked again (the
- * required time and max Zs do not depend on it). For the longest run and what would pass.
+ * required time and max Zs do not depend on it). For the longest run and what would pass. The
+ * design fault is worked out only when a check reads it: of the checks a length is tried for,
+ * only the adiabatic check does, and a trial often ends before it.
  */
 export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
   const circuit = { ...ctx.circuit, length_m: lengthM };
-  return { ...ctx, circuit, ...designed(circuit, ctx.board, ctx.supply, ctx.rules, ctx.site, ctx.derived.required_disconnect_s, ctx.design) };
+  const design = lengthDesign(circuit, ctx.rules, ctx.design);
+  const trial = { ...ctx, circuit, design, vdOrigin: originDrop(design.vd, ctx.site?.source) };
+  let fault: DesignFault | undefined;
+  return Object.defineProperty(trial, 'fault', {
+    get: () => (fault ??= faultOf(circuit, design, ctx.supply, ctx.rules, ctx.derived.required_disconnect_s)),
+    enumerable: true,
+  });
 }
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
@@ -146,8 +157,9 @@ export function assess(project: Project): Assessment {
       max_length_basis: runBasis,
       checks: CHECKS.map(([id, check]): CheckResult => {
         const r = traced(withoutDepartures(check, strictCtx, bearing), asOf);
-        const fix = REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
-        const withFix = fix && r.status === 'fail' ? { ...r, remedy: fix } : r;
+        // what would pass is shown only on a failure, so it is looked for only there
+        const fix = r.status === 'fail' && REMEDIED.has(id) ? remedy(id, check, strictCtx, changed, trials) : null;
+        const withFix = fix ? { ...r, remedy: fix } : r;
         return id === 'zs-measured' && query ? withQuery(withFix, query) : withFix;
       }),
       ...(site.feeds ? {

@@ -84,7 +84,9 @@ const ENDS_FAILURE: Meets = (s) => s !== 'fail';
 
 /** One plain line: what would make the failing check pass, or null where the check did not fail or is not a design check. */
 export function remedy(id: string, check: Check, ctx: CircuitContext, changed: Changed, trials: Trials): string | null {
-  if (check(ctx).status !== 'fail') return null;
+  // its status, value and limit are read, never its words
+  const now = numbersOnly(() => check(ctx));
+  if (now.status !== 'fail') return null;
   const tried = candidates(id, ctx);
   if (tried.length === 0 && !BY_LENGTH.has(id)) return null;
   const found = (meets: Meets): string[] => {
@@ -102,6 +104,6 @@ export function remedy(id: string, check: Check, ctx: CircuitContext, changed: C
   if (passing.length > 0) return `would pass with ${passing.join(', or ')}`;
   const mending = found(ENDS_FAILURE);
   if (mending.length > 0) return `would no longer fail with ${mending.join(', or ')} (none of the changes tried makes it pass)`;
-  const share = boardShare(ctx, check(ctx));
+  const share = boardShare(ctx, now);
   return `no single change tried passes (${BY_LENGTH.has(id) ? 'a shorter run, ' : ''}${tried.length ? 'the next sizes up, another curve or rating' : 'nothing else to try'})${share || ': the design needs another look'}`;
 }

@@ -6,16 +6,16 @@
 import { parseArgs } from 'node:util';
 import { copyFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { basename, join, relative, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { stringify } from 'yaml';
 import { readFirm } from '../load/firm.js';
 import { readYaml } from '../load/yaml.js';
 import { CIRCUIT_REQUIRED, EARTHING } from '../model/schema.js';
 import { missingFolder } from './folders.js';
 import { FILL_IN } from './placeholders.js';
+import { packagePath } from '../paths.js';
 
 /** The JSON Schema of project.yaml shipped with packsmith (schema/ beside dist/ and src/). */
-export const PROJECT_SCHEMA = fileURLToPath(new URL('../../schema/project.schema.json', import.meta.url));
+export const PROJECT_SCHEMA = packagePath('schema/project.schema.json');
 
 const FILL = FILL_IN;
 

@@ -2,12 +2,11 @@
 // from the zod schemas. tests/docs fails when the committed files differ from these.
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { generatedFiles } from './files.js';
+import { packagePath } from '../paths.js';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
 for (const [rel, text] of Object.entries(generatedFiles())) {
-  const path = `${root}${rel}`;
+  const path = packagePath(rel);
   mkdirSync(dirname(path), { recursive: true });
   writeFileSync(path, text);
   process.stdout.write(`wrote ${rel}\n`);

@@ -5,9 +5,9 @@
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
 import { confinedFile } from '../load/confine.js';
-import { fileURLToPath } from 'node:url';
+import { packagePath } from '../paths.js';
 
-export const BUILTIN_TEMPLATES = fileURLToPath(new URL('../../templates/', import.meta.url));
+export const BUILTIN_TEMPLATES = packagePath('templates/');
 
 const LOGO_TYPES: Record<string, string> = { '.svg': 'image/svg+xml', '.png': 'image/png', '.jpg': 'image/jpeg', '.jpeg': 'image/jpeg' };
 const LOGO_NAMES = Object.keys(LOGO_TYPES).map((ext) => `logo${ext}`);
