@@ -13,6 +13,8 @@ export interface PrintPool {
   room(limit?: number): Promise<void>;
   /** pages opened so far, and the most that printed at one time */
   stats(): { opened: number; busiest: number; printed: number };
+  /** Open a page ahead of the first print, where none is open or opening (its errors are the first print's). */
+  warm(): void;
   close(): Promise<void>;
 }
 
@@ -29,6 +31,7 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   let busiest = 0;
   let pending = 0;
   let printed = 0;
+  let closed = false;
 
   const open = async (): Promise<PrintPage> => {
     opening += 1;
@@ -93,7 +96,18 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
       return new Promise((resolve) => roomWaiters.push({ limit, resolve }));
     },
     stats: () => ({ opened: all.size, busiest, printed }),
+    warm() {
+      if (closed || all.size + opening > 0) return;
+      open().then(
+        (p) => (closed ? void p.page.close().catch(() => undefined) : release(p)),
+        () => {
+          const next = waiting.shift(); // a print waiting for this page opens its own, and meets the error itself
+          if (next) open().then(next.resolve, next.reject);
+        },
+      );
+    },
     async close() {
+      closed = true;
       await Promise.all([...all].map((p) => p.page.close().catch(() => undefined)));
       all.clear();
       idle.length = 0;
