@@ -222,13 +222,21 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     const settled = await Promise.allSettled(printing);
     const failed = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
     if (failed) throw failed.reason;
-  } finally {
+  } catch (e) {
     progress.done();
     await Promise.allSettled(printing);
     await printer?.close();
+    throw e;
   }
-  if (opts.site !== false) writeSite(out, sources, look.inspect);
-  else outDir(out);
-  look.known.save();
+  progress.done();
+  const closing = printer?.close(); // Chromium ends while the site is written
+  await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
+  try {
+    if (opts.site !== false) writeSite(out, sources, look.inspect);
+    else outDir(out);
+    look.known.save();
+  } finally {
+    await closing;
+  }
   return result;
 }

@@ -143,8 +143,8 @@ export function lazyPrinter(chromium: string, poolSize?: number): Printer {
       if (!started) return;
       const s = await started.catch(() => null); // started by warm() and failed: nothing to close
       if (!s) return;
-      await s.pool.close();
-      if (s.own) await s.browser.close();
+      if (s.own) await s.browser.close(); // its pages end with it
+      else await s.pool.close();
     },
   };
 }

@@ -32,6 +32,7 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   let pending = 0;
   let printed = 0;
   let closed = false;
+  let warming = false;
 
   const open = async (): Promise<PrintPage> => {
     opening += 1;
@@ -46,7 +47,8 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   const acquire = (): Promise<PrintPage> => {
     const p = idle.pop();
     if (p) return Promise.resolve(p);
-    if (all.size + opening < size) return open();
+    // the page warm() is opening goes to the first print (a single pack opens no second page)
+    if (all.size + opening < size && !(warming && waiting.length === 0)) return open();
     return new Promise((resolve, reject) => waiting.push({ resolve, reject }));
   };
   const release = (p: PrintPage) => {
@@ -98,9 +100,15 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
     stats: () => ({ opened: all.size, busiest, printed }),
     warm() {
       if (closed || all.size + opening > 0) return;
+      warming = true;
       open().then(
-        (p) => (closed ? void p.page.close().catch(() => undefined) : release(p)),
+        (p) => {
+          warming = false;
+          if (closed) void p.page.close().catch(() => undefined);
+          else release(p);
+        },
         () => {
+          warming = false;
           const next = waiting.shift(); // a print waiting for this page opens its own, and meets the error itself
           if (next) open().then(next.resolve, next.reject);
         },
