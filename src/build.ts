@@ -230,6 +230,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   }
   progress.done();
   const closing = printer?.close(); // Chromium ends while the site is written
+  closing?.catch(() => undefined); // (a failure is thrown below, once the site is written, not reported as unhandled meanwhile)
   await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
   try {
     if (opts.site !== false) writeSite(out, sources, look.inspect);
