@@ -18,6 +18,7 @@ import { jobInputFiles } from './load/job.js';
 import { changesSince } from './archive/previous.js';
 import { outputStats, readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
+import { mayHaveChanged } from './archive/touched.js';
 import { writeSite, type SiteSource } from './archive/site.js';
 import { jobArchiveSettings, type ArchiveSettings } from './archive/location.js';
 import { jobFolders } from './load/jobs.js';
@@ -139,6 +140,9 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const names = new Map<string, string>();
   const sources: SiteSource[] = [];
   const look = lookups(opts.archive ?? null, out);
+  // Chromium takes seconds to start: begin now, alongside the look at every job, when a glance
+  // says some pack will need printing (closed unused if the look finds none does)
+  if (printer?.warm && (opts.force || opts.jobs.some((dir) => mayHaveChanged(dir, join(out, basename(resolve(dir)), 'draft'))))) printer.warm();
   try {
     for (const dir of opts.jobs) {
       if (printing.length > 0) await new Promise((r) => setImmediate(r)); // let the printer start while unchanged jobs are looked at
@@ -218,13 +222,22 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     const settled = await Promise.allSettled(printing);
     const failed = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
     if (failed) throw failed.reason;
-  } finally {
+  } catch (e) {
     progress.done();
     await Promise.allSettled(printing);
     await printer?.close();
+    throw e;
   }
-  if (opts.site !== false) writeSite(out, sources, look.inspect);
-  else outDir(out);
-  look.known.save();
+  progress.done();
+  const closing = printer?.close(); // Chromium ends while the site is written
+  closing?.catch(() => undefined); // (a failure is thrown below, once the site is written, not reported as unhandled meanwhile)
+  await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
+  try {
+    if (opts.site !== false) writeSite(out, sources, look.inspect);
+    else outDir(out);
+    look.known.save();
+  } finally {
+    await closing;
+  }
   return result;
 }

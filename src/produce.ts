@@ -90,6 +90,11 @@ export interface Printer {
   print: PrintPool['print'];
   /** resolves when the pool has room for another pack (so rendering runs ahead of printing, but not the whole build) */
   room(): Promise<void>;
+  /**
+   * Start what printing needs now, before the first pack is ready: Chromium and a first page, and
+   * the PDF library. A build calls it when a pack will likely need printing; unused, close() ends it.
+   */
+  warm?(): void;
   close(): Promise<void>;
 }
 
@@ -129,11 +134,17 @@ export function lazyPrinter(chromium: string, poolSize?: number): Printer {
   return {
     print: async (htmlPath, opts) => (await start()).pool.print(htmlPath, opts),
     room: async () => { if (started) await (await started).pool.room(); },
+    warm: () => {
+      // a failed start is reported by the first print that needs it, not here
+      start().then(({ pool }) => pool.warm(), () => undefined);
+      import('pdf-lib').catch(() => undefined);
+    },
     close: async () => {
       if (!started) return;
-      const { browser, pool, own } = await started;
-      await pool.close();
-      if (own) await browser.close();
+      const s = await started.catch(() => null); // started by warm() and failed: nothing to close
+      if (!s) return;
+      if (s.own) await s.browser.close(); // its pages end with it
+      else await s.pool.close();
     },
   };
 }

@@ -16,7 +16,7 @@ const seconds = (t0: bigint) => Number(process.hrtime.bigint() - t0) / 1e9;
 const quiet = { isTTY: false, write: () => true };
 
 /** A printer that prints nothing: a one-page PDF for every pack, to lay down an archive's drafts quickly before the timed rebuild. */
-async function blankPrinter(): Promise<Printer> {
+export async function blankPrinter(): Promise<Printer> {
   const doc = await PDFDocument.create();
   doc.addPage();
   const pdf = await doc.save();

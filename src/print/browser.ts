@@ -2,7 +2,7 @@
 // Chromium (PACKSMITH_CHROME, else the usual Debian paths). Never downloads a browser.
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readlinkSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import puppeteer, { type Browser } from 'puppeteer-core';
 
 const CANDIDATES = ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome-stable', '/usr/bin/google-chrome'];
@@ -18,6 +18,10 @@ export const CHROMIUM_FLAGS = [
   '--disable-extensions',
   '--disable-default-apps',
   '--font-render-hinting=none',
+  // No processes that print nothing: a spare renderer kept warm for the next tab, and the
+  // address bar's pop-ups, which headless Chromium builds though it shows no window (each a
+  // renderer of about 100 MB resident).
+  '--disable-features=SpareRendererForSitePerProcess,WebUIOmniboxPopup,WebUIOmniboxAimPopup,WebUIOmniboxFullPopup',
 ];
 
 export function findChromium(env: NodeJS.ProcessEnv = process.env): string | null {
@@ -70,6 +74,8 @@ export function clearStaleProfiles(folder = profilesFolder()): string[] {
       /* no lock: Chromium is not running on it */
     }
     if (chromium > 0 && alive(chromium)) continue;
+    const socketDir = singletonDir(join(folder, name));
+    if (socketDir) rmSync(socketDir, { recursive: true, force: true });
     rmSync(join(folder, name), { recursive: true, force: true });
     removed.push(name);
   }
@@ -78,6 +84,38 @@ export function clearStaleProfiles(folder = profilesFolder()): string[] {
 
 /** How long Chromium may take to start. */
 export const LAUNCH_TIMEOUT_MS = 120_000;
+
+/**
+ * Chromium's own folder in the temporary folder, which its profile's SingletonSocket links into
+ * and which it leaves behind even when closed properly; null where there is none.
+ */
+function singletonDir(profile: string): string | null {
+  try {
+    const dir = dirname(readlinkSync(join(profile, 'SingletonSocket')));
+    return /[/\\]org\.chromium\.Chromium\.\w+$/.test(dir) ? dir : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * End Chromium and every process it started, at once: its process group is killed and its exit
+ * awaited. Nothing it holds is kept (its profile is removed next), so its own orderly shutdown,
+ * a second or more on a loaded machine, buys nothing; a browser without a process of its own
+ * (connected, not launched) is closed the usual way.
+ */
+async function stop(browser: Browser): Promise<void> {
+  const proc = browser.process();
+  if (!proc?.pid || proc.exitCode !== null || proc.signalCode !== null) return browser.close();
+  const exited = new Promise<void>((resolve) => proc.once('exit', () => resolve()));
+  try {
+    process.kill(-proc.pid, 'SIGKILL'); // puppeteer starts Chromium as the leader of its own group
+  } catch {
+    proc.kill('SIGKILL');
+  }
+  await exited;
+  await browser.close().catch(() => undefined); // the connection's own clean-up; the process is gone
+}
 
 export async function launchBrowser(executablePath: string): Promise<PrintBrowser> {
   const folder = profilesFolder();
@@ -102,14 +140,18 @@ export async function launchBrowser(executablePath: string): Promise<PrintBrowse
     rmSync(profile, { recursive: true, force: true });
     throw e;
   }
+  // the tab Chromium opens at start is never printed on: its renderer goes (the browser stays up without tabs)
+  await Promise.all((await browser.pages().catch(() => [])).map((p) => p.close().catch(() => undefined)));
 
   return {
     browser,
     async close() {
+      const socketDir = singletonDir(profile);
       try {
-        await browser.close();
+        await stop(browser);
       } finally {
         rmSync(profile, { recursive: true, force: true });
+        if (socketDir) rmSync(socketDir, { recursive: true, force: true });
       }
     },
   };

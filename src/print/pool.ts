@@ -13,6 +13,8 @@ export interface PrintPool {
   room(limit?: number): Promise<void>;
   /** pages opened so far, and the most that printed at one time */
   stats(): { opened: number; busiest: number; printed: number };
+  /** Open a page ahead of the first print, where none is open or opening (its errors are the first print's). */
+  warm(): void;
   close(): Promise<void>;
 }
 
@@ -29,6 +31,8 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   let busiest = 0;
   let pending = 0;
   let printed = 0;
+  let closed = false;
+  let warming = false;
 
   const open = async (): Promise<PrintPage> => {
     opening += 1;
@@ -43,7 +47,8 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   const acquire = (): Promise<PrintPage> => {
     const p = idle.pop();
     if (p) return Promise.resolve(p);
-    if (all.size + opening < size) return open();
+    // the page warm() is opening goes to the first print (a single pack opens no second page)
+    if (all.size + opening < size && !(warming && waiting.length === 0)) return open();
     return new Promise((resolve, reject) => waiting.push({ resolve, reject }));
   };
   const release = (p: PrintPage) => {
@@ -93,7 +98,24 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
       return new Promise((resolve) => roomWaiters.push({ limit, resolve }));
     },
     stats: () => ({ opened: all.size, busiest, printed }),
+    warm() {
+      if (closed || all.size + opening > 0) return;
+      warming = true;
+      open().then(
+        (p) => {
+          warming = false;
+          if (closed) void p.page.close().catch(() => undefined);
+          else release(p);
+        },
+        () => {
+          warming = false;
+          const next = waiting.shift(); // a print waiting for this page opens its own, and meets the error itself
+          if (next) open().then(next.resolve, next.reject);
+        },
+      );
+    },
     async close() {
+      closed = true;
       await Promise.all([...all].map((p) => p.page.close().catch(() => undefined)));
       all.clear();
       idle.length = 0;

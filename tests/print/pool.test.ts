@@ -62,6 +62,28 @@ describe('the print pool', () => {
     await pool.close();
   });
 
+  it('opens a page ahead of the first print when warmed, and that print uses it', async () => {
+    const pool = createPrintPool(browser.browser, 2);
+    const pagesBefore = (await browser.browser.pages()).length;
+    pool.warm();
+    pool.warm(); // a second call opens no second page, nor does the print that comes while it opens
+    const r = await pool.print(files[1]!, OPTS);
+    expect((await pdfText(r.pdf)).text.join(' ')).toContain('pack number 1');
+    expect(pool.stats()).toEqual({ opened: 1, busiest: 1, printed: 1 });
+    expect((await browser.browser.pages()).length).toBe(pagesBefore + 1);
+    await pool.close();
+    expect((await browser.browser.pages()).length).toBe(pagesBefore);
+  });
+
+  it('warmed and closed before its page is open, leaves no page behind', async () => {
+    const pool = createPrintPool(browser.browser, 1);
+    const pagesBefore = (await browser.browser.pages()).length;
+    pool.warm();
+    await pool.close();
+    await new Promise((r) => setTimeout(r, 2000)); // the page opening meanwhile closes itself when it arrives
+    expect((await browser.browser.pages()).length).toBe(pagesBefore);
+  });
+
   it('refuses a size below one', () => {
     expect(() => createPrintPool(browser.browser, 0)).toThrow(/at least one page/);
   });
