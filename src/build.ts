@@ -140,13 +140,15 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const names = new Map<string, string>();
   const sources: SiteSource[] = [];
   const look = lookups(opts.archive ?? null, out);
+  const nameOf = (dir: string) => basename(resolve(dir));
+  const draftOf = (name: string) => join(out, name, 'draft');
   // Chromium takes seconds to start: begin now, alongside the look at every job, when a glance
   // says some pack will need printing (closed unused if the look finds none does)
-  if (printer?.warm && (opts.force || opts.jobs.some((dir) => mayHaveChanged(dir, join(out, basename(resolve(dir)), 'draft'))))) printer.warm();
+  if (printer?.warm && (opts.force || opts.jobs.some((dir) => mayHaveChanged(dir, draftOf(nameOf(dir)))))) printer.warm();
   try {
     for (const dir of opts.jobs) {
       if (printing.length > 0) await new Promise((r) => setImmediate(r)); // let the printer start while unchanged jobs are looked at
-      const name = basename(resolve(dir));
+      const name = nameOf(dir);
       const twin = names.get(name);
       if (twin !== undefined) {
         const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
@@ -157,9 +159,9 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       names.set(name, dir);
       const where = look.settingsOf(dir);
       const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
-      if (!opts.force && where.errors.length === 0 && unchanged(dir, join(out, name, 'draft'), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
+      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
         sources.push({ job: name, archive: where.archive });
-        result.skipped.push({ job: name, dir: join(out, name, 'draft') });
+        result.skipped.push({ job: name, dir: draftOf(name) });
         progress.tick(name);
         continue;
       }
@@ -172,7 +174,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         continue;
       }
       const { project, assessment } = job;
-      const target = join(out, project.name, 'draft');
+      const target = draftOf(project.name);
       sources.push({ job: project.name, archive: where.archive });
       const latest = latestOf();
       const style = styleOf(project, job.raw.dir, { theme: opts.theme ?? null, ...(opts.paper ? { paper: opts.paper } : {}) }, engineFor, treeHash);
