@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import type { Target } from 'puppeteer-core';
 import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
 import { createPrintPool, defaultPoolSize } from '../../src/print/pool.js';
 import { pdfText } from '../helpers/pdf.js';
@@ -78,9 +79,16 @@ describe('the print pool', () => {
   it('warmed and closed before its page is open, leaves no page behind', async () => {
     const pool = createPrintPool(browser.browser, 1);
     const pagesBefore = (await browser.browser.pages()).length;
+    const created = new Promise<Target>((resolve) => browser.browser.once('targetcreated', resolve));
+    const destroyed = new Set<Target>();
+    const onDestroyed = (t: Target) => destroyed.add(t);
+    browser.browser.on('targetdestroyed', onDestroyed);
     pool.warm();
     await pool.close();
-    await new Promise((r) => setTimeout(r, 2000)); // the page opening meanwhile closes itself when it arrives
+    // the page opening meanwhile closes itself when it arrives: wait for exactly that, however long it takes
+    const page = await created;
+    while (!destroyed.has(page)) await new Promise((r) => setTimeout(r, 20));
+    browser.browser.off('targetdestroyed', onDestroyed);
     expect((await browser.browser.pages()).length).toBe(pagesBefore);
   });
 
