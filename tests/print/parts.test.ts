@@ -90,20 +90,21 @@ describe('a pack printed in parts', () => {
     if (!chromium) throw new Error('no Chromium: run scripts/install-deps.sh (or set PACKSMITH_CHROME)');
     browser = await launchBrowser(chromium);
     let opts: PdfOptions | null = null;
-    // the build prints the pack whole and hands over its HTML and its running header and footer
+    // the build prints the pack whole (kept as `whole`) and hands over its HTML and its running header and footer
     await build({
       jobs: [join(ROOT, 'projects/tannery-row-refit')], out, force: true, archive: join(out, 'no-archive'), log: () => {},
       printer: {
         print: async (path, o) => {
           html = path;
           opts = o;
-          return printPdf(browser.browser, path, o);
+          const printed = await printPdf(browser.browser, path, o);
+          whole = printed.pdf;
+          return printed;
         },
         room: async () => {},
         close: async () => {},
       },
     });
-    whole = (await printPdf(browser.browser, html, opts!)).pdf;
     parts = (await printPdf(browser.browser, html, opts!, { single: 0, part: PART })).pdf;
     partsAgain = (await printPdf(browser.browser, html, opts!, { single: 0, part: PART })).pdf;
     // the same printed parts and footers joined twice: what the joiner adds must not vary
