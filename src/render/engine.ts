@@ -13,6 +13,7 @@ import { readFileSync } from 'node:fs';
 import { relative } from 'node:path';
 import { fmt } from '../model/units.js';
 import { BUILTIN_TEMPLATES, templateFiles, type TemplateFiles } from './theme.js';
+import { cspInTemplate, withCsp } from './csp.js';
 
 export { BUILTIN_TEMPLATES };
 
@@ -26,7 +27,12 @@ export class TemplateError extends Error {
 export interface Engine {
   files: TemplateFiles;
   render(template: string, view: unknown): string;
-  /** a file of the template folders as text (e.g. pack.css) */
+  /**
+   * A whole page: `render` with the Content-Security-Policy first in its <head> (csp.ts), put into
+   * the template once where it can be, else into each page.
+   */
+  renderPage(template: string, view: unknown): string;
+  /** a file of the template folders as text (e.g. pack.css), read once per engine */
   asset(name: string): string;
 }
 
@@ -91,9 +97,9 @@ function named(fn: Handlebars.TemplateDelegate, file: string): Handlebars.Templa
 export function createEngine(opts: { theme?: string | null } = {}): Engine {
   const files = templateFiles(opts.theme ?? null);
   const hb = Handlebars.create();
-  const compile = (file: string) => {
+  const compile = (file: string, source = readFileSync(file, 'utf8')) => {
     try {
-      return named(hb.compile(readFileSync(file, 'utf8'), { strict: true }), file);
+      return named(hb.compile(source, { strict: true }), file);
     } catch (e) {
       throw new TemplateError(where(file), e instanceof Error ? e.message : String(e));
     }
@@ -102,20 +108,44 @@ export function createEngine(opts: { theme?: string | null } = {}): Engine {
   hb.registerHelper('num', (n: unknown, digits: unknown) =>
     typeof n === 'number' ? fmt(n, typeof digits === 'number' ? digits : 3) : '—');
   hb.registerHelper('eq', (a: unknown, b: unknown) => a === b);
+  const fileOf = (template: string): string => {
+    const file = files.find(template);
+    if (file === null) throw new Error(`template "${template}" is neither in the theme nor built in`);
+    return file;
+  };
   const compiled = new Map<string, Handlebars.TemplateDelegate>();
+  /** page templates: compiled with the policy inside (`withPolicy`), or without it where it could not be put in */
+  const pages = new Map<string, { fn: Handlebars.TemplateDelegate; withPolicy: boolean }>();
+  const assets = new Map<string, string>();
   return {
     files,
     render(template, view) {
       let t = compiled.get(template);
       if (!t) {
-        const file = files.find(template);
-        if (file === null) throw new Error(`template "${template}" is neither in the theme nor built in`);
-        t = compile(file);
+        t = compile(fileOf(template));
         compiled.set(template, t);
       }
       return t(guarded(view));
     },
-    asset: (name) => files.read(name),
+    renderPage(template, view) {
+      let p = pages.get(template);
+      if (!p) {
+        const file = fileOf(template);
+        const source = cspInTemplate(readFileSync(file, 'utf8'));
+        p = { fn: compile(file, source ?? undefined), withPolicy: source !== null };
+        pages.set(template, p);
+      }
+      const html = p.fn(guarded(view));
+      return p.withPolicy ? html : withCsp(html);
+    },
+    asset(name) {
+      let text = assets.get(name);
+      if (text === undefined) {
+        text = files.read(name);
+        assets.set(name, text);
+      }
+      return text;
+    },
   };
 }
 
