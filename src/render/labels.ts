@@ -240,7 +240,7 @@ function plainWordsOf(text: string): string {
 }
 
 /** plainWords of the same basis line is asked for by the summary, the appendix and each render of a served job. */
-const plainWordsCache = boundedCache<string>(8192);
+const plainWordsCache = boundedCache<string>(4096);
 export const plainWords = (text: string): string => plainWordsCache(text, () => plainWordsOf(text));
 
 /** A phrase as a sentence of its own: its first letter a capital. */

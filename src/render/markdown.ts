@@ -46,7 +46,7 @@ function makeProcessor(topLevel: number) {
 }
 
 /** The HTML of notes by their level and text: a job's notes are rendered again on every build and every save while served. */
-const rendered = boundedCache<string>(256);
+const rendered = boundedCache<string>(128);
 
 /** `topLevel` 0 keeps the headings as written. */
 export function markdownToHtml(markdown: string, opts: { topLevel?: number } = {}): string {

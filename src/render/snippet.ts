@@ -97,7 +97,7 @@ export interface SnippetForm {
 const deviceKey = (device: Device): string => `${device.code} ${device.rating_a}`;
 
 /** The band's shapes and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
-const bands = boundedCache<{ plot: readonly string[]; desc: string }>(256);
+const bands = boundedCache<{ plot: readonly string[]; desc: string }>(128);
 const band = (device: Device) => bands(deviceKey(device), () => {
   const ch = characteristic(device);
   if (!ch) return { plot: [], desc: `The device library holds no published time-current points for ${device.code} ${fmt(device.rating_a)} A.` };
@@ -119,7 +119,7 @@ const band = (device: Device) => bands(deviceKey(device), () => {
 });
 
 /** A downstream device's band as points (its hatch is named after the snippet's title), by device. */
-const downstreamBands = boundedCache<{ area: string | null; slowest: string; source: string } | null>(256);
+const downstreamBands = boundedCache<{ area: string | null; slowest: string; source: string } | null>(128);
 const downstreamBand = (device: Device) => downstreamBands(deviceKey(device), () => {
   const down = characteristic(device);
   if (!down) return null;
@@ -134,7 +134,7 @@ const downstreamBand = (device: Device) => downstreamBands(deviceKey(device), ()
 });
 
 /** The fault point's line, marker, label and sentence, by device and fault current. */
-const faultPoints = boundedCache<{ plot: readonly string[]; over: readonly string[]; desc: string }>(4096);
+const faultPoints = boundedCache<{ plot: readonly string[]; over: readonly string[]; desc: string }>(2048);
 const faultPoint = (device: Device, fault: number) => faultPoints(`${deviceKey(device)} ${fault}`, () => {
   const plot: string[] = [];
   const over: string[] = [];
