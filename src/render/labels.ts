@@ -4,6 +4,7 @@
 // Ids agreed for later checks and derived values (CONTRACT.md) are here already, so they render
 // in words the day they arrive.
 import type { Status } from '../calc/types.js';
+import { boundedCache } from './memo.js';
 
 export interface Label {
   /** sentence case, as a column or row heading */
@@ -230,13 +231,17 @@ const FIELD_ID = /\b(?:(?:supply|rules|boards|client|site|installer|dates|signof
  * dropped, field ids replaced by their labels ("breaking_ka not given" → "breaking capacity of
  * the device not given").
  */
-export function plainWords(text: string): string {
+function plainWordsOf(text: string): string {
   const named = JOB_FILES.reduce((t, [file, words]) => t.replace(file, words), text.replace(INTERNAL_FILES, ''));
   return named.replace(FIELD_ID, (id) => {
     const known = id.includes('.') ? JOB_LABELS[id] : (READING_LABELS[id] ?? CIRCUIT_LABELS[id] ?? DERIVED_LABELS[id]);
     return known ? lower(known.label) : id;
   });
 }
+
+/** plainWords of the same basis line is asked for by the summary, the appendix and each render of a served job. */
+const plainWordsCache = boundedCache<string>(4096);
+export const plainWords = (text: string): string => plainWordsCache(text, () => plainWordsOf(text));
 
 /** A phrase as a sentence of its own: its first letter a capital. */
 export const sentence = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);

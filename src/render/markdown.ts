@@ -8,6 +8,7 @@ import remarkGfm from 'remark-gfm';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
 import rehypeStringify from 'rehype-stringify';
+import { boundedCache } from './memo.js';
 
 const schema = {
   ...defaultSchema,
@@ -44,13 +45,18 @@ function makeProcessor(topLevel: number) {
     .use(rehypeStringify);
 }
 
+/** The HTML of notes by their level and text: a job's notes are rendered again on every build and every save while served. */
+const rendered = boundedCache<string>(128);
+
 /** `topLevel` 0 keeps the headings as written. */
 export function markdownToHtml(markdown: string, opts: { topLevel?: number } = {}): string {
   const level = opts.topLevel ?? 0;
-  let p = processors.get(level);
-  if (!p) {
-    p = makeProcessor(level);
-    processors.set(level, p);
-  }
-  return String(p.processSync(markdown));
+  return rendered(`${level}\n${markdown}`, () => {
+    let p = processors.get(level);
+    if (!p) {
+      p = makeProcessor(level);
+      processors.set(level, p);
+    }
+    return String(p.processSync(markdown));
+  });
 }

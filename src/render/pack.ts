@@ -5,7 +5,7 @@ import type { Project } from '../model/validate.js';
 import type { Assessment } from '../calc/types.js';
 import { buildView, type RenderOptions, type ThemeAssets } from './view.js';
 import { createEngine, type Engine } from './engine.js';
-import { inlineCss, withCsp } from './csp.js';
+import { inlineCss } from './csp.js';
 import { CURVE_CSS } from './snippet.js';
 
 export interface RenderedPack {
@@ -15,21 +15,29 @@ export interface RenderedPack {
   footer: string;
 }
 
+/** Each engine's stylesheets and logo, read and joined on its first pack (an engine is one theme's files as first read). */
+const assetsOf = new WeakMap<Engine, ThemeAssets>();
+
 export function themeAssets(engine: Engine): ThemeAssets {
-  const logo = engine.files.logo();
-  // the curve snippets' stylesheet once for the whole pack (they carry none of their own), before the theme's
-  return { css: inlineCss(`${engine.asset('pack.css')}\n${CURVE_CSS}\n${engine.asset('theme.css')}`), logo: logo ? { src: logo.src } : null };
+  let assets = assetsOf.get(engine);
+  if (!assets) {
+    const logo = engine.files.logo();
+    // the curve snippets' stylesheet once for the whole pack (they carry none of their own), before the theme's
+    assets = { css: inlineCss(`${engine.asset('pack.css')}\n${CURVE_CSS}\n${engine.asset('theme.css')}`), logo: logo ? { src: logo.src } : null };
+    assetsOf.set(engine, assets);
+  }
+  return assets;
 }
 
 export function renderPackFiles(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): RenderedPack {
   const view = buildView(project, assessment, opts, themeAssets(engine));
   return {
-    html: withCsp(engine.render('pack.hbs', view)),
+    html: engine.renderPage('pack.hbs', view),
     header: engine.render('print-header.hbs', view),
     footer: engine.render('print-footer.hbs', view),
   };
 }
 
 export function renderPack(project: Project, assessment: Assessment, opts: RenderOptions, engine: Engine = createEngine()): string {
-  return withCsp(engine.render('pack.hbs', buildView(project, assessment, opts, themeAssets(engine))));
+  return engine.renderPage('pack.hbs', buildView(project, assessment, opts, themeAssets(engine)));
 }

@@ -5,6 +5,7 @@
 import { scaleLog } from 'd3-scale';
 import { characteristic, operatingTime, type Device, type Edge } from '../calc/devices/index.js';
 import { fmt } from '../model/units.js';
+import { boundedCache } from './memo.js';
 
 export interface CurveSnippetOptions {
   device: Device;
@@ -92,43 +93,85 @@ export interface SnippetForm {
   style?: boolean;
 }
 
+/** A device's key for the caches below: a device is its code and rating. */
+const deviceKey = (device: Device): string => `${device.code} ${device.rating_a}`;
+
+/** The band's shapes and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
+const bands = boundedCache<{ plot: readonly string[]; desc: string }>(128);
+const band = (device: Device) => bands(deviceKey(device), () => {
+  const ch = characteristic(device);
+  if (!ch) return { plot: [], desc: `The device library holds no published time-current points for ${device.code} ${fmt(device.rating_a)} A.` };
+  const plot: string[] = [];
+  const slow = edgePath(ch.slowest);
+  let desc: string;
+  if (ch.fastest) {
+    const fast = edgePath(ch.fastest);
+    const [fl, tl] = fast[fast.length - 1]!;
+    const area = [...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()];
+    plot.push(`<polygon class="band" points="${toXY(area)}"/>`);
+    plot.push(`<polyline class="fastest" points="${toXY(fast)}"/>`);
+    desc = `The shaded band lies between the fastest and the slowest operating times of ${ch.source}.`;
+  } else {
+    desc = `The line is the slowest operating time of ${ch.source}; no fastest edge is published.`;
+  }
+  plot.push(`<polyline class="slowest" points="${toXY(slow)}"/>`);
+  return { plot, desc };
+});
+
+/** A downstream device's band as points (its hatch is named after the snippet's title), by device. */
+const downstreamBands = boundedCache<{ area: string | null; slowest: string; source: string } | null>(128);
+const downstreamBand = (device: Device) => downstreamBands(deviceKey(device), () => {
+  const down = characteristic(device);
+  if (!down) return null;
+  const slow = edgePath(down.slowest);
+  let area: string | null = null;
+  if (down.fastest) {
+    const fast = edgePath(down.fastest);
+    const [fl, tl] = fast[fast.length - 1]!;
+    area = toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()]);
+  }
+  return { area, slowest: toXY(slow), source: down.source };
+});
+
+/** The fault point's line, marker, label and sentence, by device and fault current. */
+const faultPoints = boundedCache<{ plot: readonly string[]; over: readonly string[]; desc: string }>(2048);
+const faultPoint = (device: Device, fault: number) => faultPoints(`${deviceKey(device)} ${fault}`, () => {
+  const plot: string[] = [];
+  const over: string[] = [];
+  const t = operatingTime(device, fault).slowest_s;
+  const shown = `${fmt(fault)} A`;
+  if (fault >= I_MIN && fault <= I_MAX) {
+    const xf = x(fault);
+    const yf = t === null ? 0 : Math.min(PH, Math.max(0, y(t)));
+    plot.push(`<line class="fault" x1="${c(xf)}" y1="${c(PH)}" x2="${c(xf)}" y2="${c(yf)}"/>`);
+    if (t !== null) over.push(`<circle class="marker" cx="${c(xf)}" cy="${c(yf)}" r="3.0"/>`);
+    const label = t === null ? `${shown}: not known to operate` : `${shown}: ${fmt(t)} s`;
+    const anchor = xf > PW / 2 ? 'end' : 'start';
+    over.push(`<text class="note" x="${c(xf + (anchor === 'end' ? -5 : 5))}" y="${c(Math.max(10, yf - 5))}" text-anchor="${anchor}">${escape(label)}</text>`);
+  }
+  const desc = t === null
+    ? `At a fault current of ${shown} the device is not known to operate.`
+    : `At a fault current of ${shown} the slowest operating time is ${fmt(t)} s.`;
+  return { plot, over, desc };
+});
+
+/** The decade grid, the same in every snippet. */
+const GRID: readonly string[] = grid();
+
 export function curveSnippet(opts: CurveSnippetOptions, form: SnippetForm = {}): string {
   const { device } = opts;
   const name = `${device.code} ${fmt(device.rating_a)} A`;
-  const ch = characteristic(device);
   const title = opts.title ?? `${name}: time-current characteristic`;
-  const desc: string[] = [];
-  const plot: string[] = [];
+  const own = band(device);
+  const desc: string[] = [own.desc];
+  const plot: string[] = [...own.plot];
   const over: string[] = [];
 
-  if (ch) {
-    const slow = edgePath(ch.slowest);
-    if (ch.fastest) {
-      const fast = edgePath(ch.fastest);
-      const [fl, tl] = fast[fast.length - 1]!;
-      const band = [...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...slow.reverse()];
-      plot.push(`<polygon class="band" points="${toXY(band)}"/>`);
-      plot.push(`<polyline class="fastest" points="${toXY(fast)}"/>`);
-      slow.reverse();
-      desc.push(`The shaded band lies between the fastest and the slowest operating times of ${ch.source}.`);
-    } else {
-      desc.push(`The line is the slowest operating time of ${ch.source}; no fastest edge is published.`);
-    }
-    plot.push(`<polyline class="slowest" points="${toXY(slow)}"/>`);
-  } else {
-    desc.push(`The device library holds no published time-current points for ${name}.`);
-  }
-
-  const down = opts.downstream ? characteristic(opts.downstream.device) : null;
+  const down = opts.downstream ? downstreamBand(opts.downstream.device) : null;
   const hatch = `ps-hatch-${title.replace(/[^A-Za-z0-9]+/g, '-')}`;
   if (opts.downstream && down) {
-    const slow = edgePath(down.slowest);
-    if (down.fastest) {
-      const fast = edgePath(down.fastest);
-      const [fl, tl] = fast[fast.length - 1]!;
-      plot.push(`<polygon class="band2" fill="url(#${hatch})" points="${toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()])}"/>`);
-    }
-    plot.push(`<polyline class="slowest2" points="${toXY(slow)}"/>`);
+    if (down.area !== null) plot.push(`<polygon class="band2" fill="url(#${hatch})" points="${down.area}"/>`);
+    plot.push(`<polyline class="slowest2" points="${down.slowest}"/>`);
     desc.push(`The hatched band is ${opts.downstream.label} (${down.source}), the largest device on the board this circuit feeds.`);
     const upto = opts.downstream.uptoA;
     if (upto !== null && upto >= I_MIN && upto <= I_MAX) {
@@ -148,20 +191,10 @@ export function curveSnippet(opts: CurveSnippetOptions, form: SnippetForm = {}):
 
   const fault = opts.faultCurrentA ?? null;
   if (fault !== null && fault > 0) {
-    const t = operatingTime(device, fault).slowest_s;
-    const shown = `${fmt(fault)} A`;
-    if (fault >= I_MIN && fault <= I_MAX) {
-      const xf = x(fault);
-      const yf = t === null ? 0 : Math.min(PH, Math.max(0, y(t)));
-      plot.push(`<line class="fault" x1="${c(xf)}" y1="${c(PH)}" x2="${c(xf)}" y2="${c(yf)}"/>`);
-      if (t !== null) over.push(`<circle class="marker" cx="${c(xf)}" cy="${c(yf)}" r="3.0"/>`);
-      const label = t === null ? `${shown}: not known to operate` : `${shown}: ${fmt(t)} s`;
-      const anchor = xf > PW / 2 ? 'end' : 'start';
-      over.push(`<text class="note" x="${c(xf + (anchor === 'end' ? -5 : 5))}" y="${c(Math.max(10, yf - 5))}" text-anchor="${anchor}">${escape(label)}</text>`);
-    }
-    desc.push(t === null
-      ? `At a fault current of ${shown} the device is not known to operate.`
-      : `At a fault current of ${shown} the slowest operating time is ${fmt(t)} s.`);
+    const f = faultPoint(device, fault);
+    plot.push(...f.plot);
+    over.push(...f.over);
+    desc.push(f.desc);
   }
 
   return [
@@ -171,7 +204,7 @@ export function curveSnippet(opts: CurveSnippetOptions, form: SnippetForm = {}):
     ...(form.style === false ? [] : [`<style>${CURVE_CSS}</style>`]),
     ...(opts.downstream ? [`<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`] : []),
     `<g transform="translate(${M.left},${M.top})">`,
-    ...grid(),
+    ...GRID,
     `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,
     ...plot,
     '</svg>',

@@ -33,5 +33,8 @@ export function overallStatus(a: Pick<Assessment, 'summary'>): Status {
   return 'pass';
 }
 
-export const look = (s: Status) => ({ status: s, ...STATUS_LOOK[s] });
+export const look = (s: Status) => {
+  const l = STATUS_LOOK[s];
+  return { status: s, word: l.word, symbol: l.symbol, shape: l.shape, css: l.css };
+};
 export type Look = ReturnType<typeof look>;

@@ -18,6 +18,8 @@ export interface TemplateFiles {
   /** the file that serves a name (e.g. "partials/cover.hbs"): the theme's, else the built-in, else null */
   find(name: string): string | null;
   read(name: string): string;
+  /** whether the theme holds a file of that name (one it may not read counts: its use fails where it is read) */
+  overrides(name: string): boolean;
   /** partial name → file, the theme's partials over the built-in ones */
   partials(): Map<string, string>;
   /** the logo as a data: URL (the pack stays one self-contained file), or null */
@@ -56,6 +58,7 @@ export function templateFiles(theme: string | null = null): TemplateFiles {
       if (p === null) throw new Error(`template file "${name}" is neither in the theme nor built in`);
       return readFileSync(p, 'utf8');
     },
+    overrides: (name) => themeDir !== null && confinedFile(themeDir, name, 'the theme folder').kind !== 'missing',
     partials() {
       const found = new Map<string, string>();
       for (const dir of [...layers].reverse()) {

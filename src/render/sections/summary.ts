@@ -23,7 +23,7 @@ export function openItemsAndSafety(project: Project, byCircuit: Map<string, Circ
       if (!OPEN.includes(k.status)) continue;
       const history = historyLine(k);
       // a fail or a missing reading gives its reason here; an item needing attention points to its working in the appendix
-      openItems.push({ ...who, check: k.id, label: checkLabel(k.id), basis: plainWords(k.basis), full: k.status !== 'attention', history, look: look(k.status) });
+      openItems.push({ board: who.board, ref: who.ref, description: who.description, anchor: who.anchor, check: k.id, label: checkLabel(k.id), basis: plainWords(k.basis), full: k.status !== 'attention', history, look: look(k.status) });
     }
     if (a.checks.some((k) => k.status === 'fail' && SLOW.includes(k.id))) slow.push(who);
     if (a.checks.some((k) => k.status === 'not-verified')) unverified.push(who);
