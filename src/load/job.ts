@@ -6,7 +6,7 @@ import { existsSync, lstatSync, readdirSync, readFileSync, statSync } from 'node
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
-import { confinedFolder, isInside, readConfined, realFolder } from './confine.js';
+import { confinedTo, isInside, realFolder } from './confine.js';
 import { decodeText } from './text.js';
 import { findFirmFile, readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
@@ -56,11 +56,12 @@ export function readJob(dir: string): RawJob {
     errors.push({ file: dir, row: 1, column: 1, message: 'no job folder here; expected a folder holding project.yaml and circuits.csv' });
     return job;
   }
+  const inJob = confinedTo(root, JOB_FOLDER);
   /** The text of a file of the job, null when missing, undefined when refused (an error, reported here). */
   const read = (rel: string): string | null | undefined => {
     let bytes: Buffer | null;
     try {
-      bytes = readConfined(root, rel, JOB_FOLDER);
+      bytes = inJob.read(rel);
     } catch (e) {
       errors.push({ file: rel, row: 1, column: 1, message: (e as Error).message.slice(rel.length + 2) });
       return undefined;
@@ -109,7 +110,7 @@ export function readJob(dir: string): RawJob {
     for (const x of e) errors.push(x);
   }
 
-  const readingsFolder = confinedFolder(root, 'readings', JOB_FOLDER);
+  const readingsFolder = inJob.folder('readings');
   if (readingsFolder.kind === 'refused') {
     errors.push({ file: 'readings', row: 1, column: 1, message: `readings: ${readingsFolder.message}; readings/ is a folder holding one CSV file per test session` });
   } else if (readingsFolder.kind === 'folder') {
@@ -149,14 +150,15 @@ export function readJob(dir: string): RawJob {
  */
 export function jobInputFiles(dir: string): Map<string, Buffer> | null {
   const root = resolve(dir);
+  const inJob = confinedTo(root, JOB_FOLDER);
   const files = new Map<string, Buffer>();
   const take = (rel: string) => {
-    const bytes = readConfined(root, rel, JOB_FOLDER);
+    const bytes = inJob.read(rel);
     if (bytes !== null) files.set(rel, bytes);
   };
   try {
     ['project.yaml', 'circuits.csv', 'notes.md'].forEach(take);
-    const readings = confinedFolder(root, 'readings', JOB_FOLDER);
+    const readings = inJob.folder('readings');
     if (readings.kind === 'refused') return null;
     if (readings.kind === 'folder') readdirSync(readings.path).forEach((name) => take(`readings/${name}`));
     const firm = findFirmFile(root);

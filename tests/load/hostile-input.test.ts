@@ -191,6 +191,19 @@ describe('reads stay inside the job folder', () => {
     expect(settings.errors.map((e) => e.message)).toEqual([expect.stringMatching(/^cannot read the firm file: packsmith\.yaml: a link to a file outside/)]);
     expect(settings.archive).not.toContain('TOP-SECRET');
   });
+  it('reads a job through a link to its folder, and a file linking to another inside the job', () => {
+    const job = demoCopy();
+    mkdirSync(join(job, 'docs'));
+    writeFileSync(join(job, 'docs', 'notes.md'), 'Linked notes.\n');
+    rmSync(join(job, 'notes.md'));
+    symlinkSync(join(job, 'docs', 'notes.md'), join(job, 'notes.md'));
+    const linked = join(job, '..', 'linked-job');
+    symlinkSync(job, linked);
+    expect(errorsOf(linked)).toEqual([]);
+    expect(readJob(linked).notes?.text).toBe('Linked notes.\n');
+    rmSync(join(job, 'docs', 'notes.md'));
+    only(linked, 'notes.md:1:1: a link to nothing (a broken symlink)');
+  });
   it('refuses a theme outside the firm folder that holds the jobs', () => {
     for (const theme of ['../../../../../../../../etc', '/usr/share']) {
       const job = demoCopy();
