@@ -2,13 +2,13 @@
 // The only stage besides archive that touches the file system. Reads are confined to the job
 // folder (confine.ts), text must be UTF-8 (text.ts), and every file in readings/ must be a
 // readings CSV: a file that would be skipped is an error, never a silently missing session.
-import { existsSync, lstatSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, lstatSync, readdirSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
 import { confinedTo, isInside, realFolder } from './confine.js';
 import { decodeText } from './text.js';
-import { findFirmFile, readFirm, withFirm } from './firm.js';
+import { findFirmFile, firmFileBytes, readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
 /** A readings file's name: its test date and an optional label. */
@@ -146,7 +146,8 @@ export function readJob(dir: string): RawJob {
  * The bytes of every file a job's inputs may come from, read as readJob reads them but not
  * parsed: project.yaml, circuits.csv, notes.md, everything in readings/ and the firm file. For a
  * job that readJob finds valid, these are exactly its input files, so their hash is its input hash:
- * the build's quick look at whether a job changed since its draft. null where a file is refused.
+ * the build's quick look at whether a job changed since its draft. null where a file is refused
+ * (the firm file too: read confined to its own folder, as readJob reads it).
  */
 export function jobInputFiles(dir: string): Map<string, Buffer> | null {
   const root = resolve(dir);
@@ -162,7 +163,7 @@ export function jobInputFiles(dir: string): Map<string, Buffer> | null {
     if (readings.kind === 'refused') return null;
     if (readings.kind === 'folder') readdirSync(readings.path).forEach((name) => take(`readings/${name}`));
     const firm = findFirmFile(root);
-    if (firm !== null) files.set(relative(root, firm), readFileSync(firm));
+    if (firm !== null) files.set(relative(root, firm), firmFileBytes(firm));
   } catch {
     return null;
   }

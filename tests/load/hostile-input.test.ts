@@ -2,9 +2,10 @@
 // located input error. Every one is a real job folder, the demo with one thing broken.
 import { describe, expect, it } from 'vitest';
 import { mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { demoCopy, errorsOf, replaceIn, write } from '../helpers/job.js';
-import { readJob } from '../../src/load/job.js';
+import { jobInputFiles, readJob } from '../../src/load/job.js';
+import { build } from '../../src/build.js';
 import { validate } from '../../src/model/validate.js';
 import { assess } from '../../src/calc/assess.js';
 import { CALC_RULES } from '../../src/calc/inputs.js';
@@ -190,6 +191,26 @@ describe('reads stay inside the job folder', () => {
     const settings = archiveSettings(join(firm, 'projects'));
     expect(settings.errors.map((e) => e.message)).toEqual([expect.stringMatching(/^cannot read the firm file: packsmith\.yaml: a link to a file outside/)]);
     expect(settings.archive).not.toContain('TOP-SECRET');
+  });
+  it("refuses a firm file linking outside in the build's quick look at an unchanged job, as when the job is read", async () => {
+    const job = demoCopy();
+    const firm = join(job, '..', '..');
+    const text = 'installer:\n  firm: Linked Firm Ltd\n';
+    writeFileSync(join(firm, 'packsmith.yaml'), text);
+    const quiet = { isTTY: false, write: () => true };
+    const once = (log: (l: string) => void = () => {}) => build({ jobs: [job], out: join(firm, 'out'), printer: null, progress: quiet, log });
+    expect((await once()).built).toHaveLength(1);
+    expect(jobInputFiles(job)?.get('../../packsmith.yaml')?.toString()).toBe(text);
+    const path = secret(job);
+    writeFileSync(path, text); // the same bytes, so only the link tells it from the file the draft was built from
+    rmSync(join(firm, 'packsmith.yaml'));
+    symlinkSync(path, join(firm, 'packsmith.yaml'));
+    expect(jobInputFiles(job)).toBeNull();
+    const lines: string[] = [];
+    const r = await once((l) => lines.push(l));
+    expect(r.skipped).toEqual([]);
+    expect(r.invalid.map((i) => i.job)).toEqual([basename(job)]);
+    expect(lines.join('\n')).toMatch(/cannot read the firm file: packsmith\.yaml: a link to a file outside the firm file's folder/);
   });
   it('reads a job through a link to its folder, and a file linking to another inside the job', () => {
     const job = demoCopy();
