@@ -2,10 +2,11 @@
 // firm's folder, the theme folder), never through a symlink that leaves them, only regular files
 // (a FIFO or a device would hang or flood the read), and only files of a sane size.
 //
-// A folder's real path is looked up once (`confinedTo`), then each file costs one realpath (the
-// system's, not node's walk of every path component), one stat and its read.
-import { lstatSync, readFileSync, realpathSync, statSync } from 'node:fs';
-import { isAbsolute, join, relative, resolve } from 'node:path';
+// A folder's real path is looked up once (`confinedTo`), and each sub-folder's; then a file that
+// is not a link costs one lstat and its read, a link one realpath (the system's, not node's walk
+// of every path component) and one stat.
+import { lstatSync, readFileSync, realpathSync, statSync, type Stats } from 'node:fs';
+import { basename, dirname, isAbsolute, join, normalize, relative, resolve, sep } from 'node:path';
 
 /** The largest input file packsmith reads: far above any job's, far below what would exhaust memory. */
 export const MAX_INPUT_BYTES = 16 * 1024 * 1024;
@@ -22,6 +23,15 @@ export function realFolder(dir: string): string {
     return realpathSync.native(resolve(dir));
   } catch {
     return resolve(dir);
+  }
+}
+
+/** A path's own lstat (a link not followed), or null where there is nothing to see. */
+function lstatOrNull(path: string): Stats | null {
+  try {
+    return lstatSync(path);
+  } catch {
+    return null;
   }
 }
 
@@ -47,22 +57,48 @@ export function confinedTo(root: string, what: string): Confined {
   const base = resolve(root);
   let real: string | null = null;
   const realRoot = () => (real ??= realFolder(base));
-  /** The real path of `rel` (links followed), and whether it stays inside the folder. */
-  const realInside = (rel: string, noun: 'file' | 'folder'):
-    { kind: 'missing' } | { kind: 'refused'; message: string } | { kind: 'real'; path: string; inside: boolean } => {
-    const path = join(base, rel);
+  /** The real path of each sub-folder files were read from (null: none there), looked up once. */
+  const realDirs = new Map<string, string | null>();
+  const realDir = (rel: string): string | null => {
+    let r = realDirs.get(rel);
+    if (r === undefined) {
+      try {
+        r = realpathSync.native(join(base, rel));
+      } catch {
+        r = null;
+      }
+      realDirs.set(rel, r);
+    }
+    return r;
+  };
+  type Real = { kind: 'missing' } | { kind: 'refused'; message: string } | { kind: 'real'; path: string; inside: boolean; stat: Stats | null };
+  /** The real path of `path` (links followed), or why there is none: missing, or a link to nothing. */
+  const follow = (path: string, noun: 'file' | 'folder', stat: Stats | null): Real => {
     let to: string;
     try {
       to = realpathSync.native(path);
     } catch {
-      try {
-        lstatSync(path);
-      } catch {
-        return { kind: 'missing' };
-      }
+      if (stat === null && lstatOrNull(path) === null) return { kind: 'missing' };
       return { kind: 'refused', message: `a link to nothing (a broken symlink); put the ${noun} itself in ${what}` };
     }
-    return { kind: 'real', path: to, inside: isInside(realRoot(), to) };
+    return { kind: 'real', path: to, inside: isInside(realRoot(), to), stat: null };
+  };
+  /**
+   * The real path of `rel` (links followed), and whether it stays inside the folder. The folder
+   * holding it is made real once; the name itself, when not a link, is then real as it stands
+   * (its lstat is its stat); a link is followed by one realpath.
+   */
+  const realInside = (rel: string, noun: 'file' | 'folder'): Real => {
+    const norm = normalize(rel);
+    const dir = dirname(norm);
+    if (isAbsolute(norm) || norm === '..' || norm.startsWith(`..${sep}`)) return follow(join(base, rel), noun, null);
+    const holder = dir === '.' ? realRoot() : realDir(dir);
+    if (holder === null) return follow(join(base, rel), noun, null); // its folder is missing, or a link to nothing
+    const path = join(holder, basename(norm));
+    const st = lstatOrNull(path);
+    if (st === null) return { kind: 'missing' };
+    if (st.isSymbolicLink()) return follow(path, noun, st);
+    return { kind: 'real', path, inside: isInside(realRoot(), path), stat: st };
   };
   const file = (rel: string): ConfinedFile => {
     const r = realInside(rel, 'file');
@@ -70,7 +106,7 @@ export function confinedTo(root: string, what: string): Confined {
     if (!r.inside) {
       return { kind: 'refused', message: `a link to a file outside ${what}; packsmith reads only files inside ${what}: copy the file in instead of linking to it` };
     }
-    const st = statSync(r.path);
+    const st = r.stat ?? statSync(r.path);
     if (st.isDirectory()) return { kind: 'refused', message: 'a folder where a file was expected' };
     if (!st.isFile()) return { kind: 'refused', message: 'not a regular file (a device, pipe or socket); put a plain file here' };
     if (st.size > MAX_INPUT_BYTES) return { kind: 'refused', message: `${st.size} bytes: far larger than any job file (at most ${MAX_INPUT_BYTES}); is this the right file?` };
@@ -88,7 +124,7 @@ export function confinedTo(root: string, what: string): Confined {
       const r = realInside(rel, 'folder');
       if (r.kind !== 'real') return r;
       if (!r.inside) return { kind: 'refused', message: `a link to a folder outside ${what}; packsmith reads only inside ${what}` };
-      if (!statSync(r.path).isDirectory()) return { kind: 'refused', message: `a file where a folder was expected` };
+      if (!(r.stat ?? statSync(r.path)).isDirectory()) return { kind: 'refused', message: `a file where a folder was expected` };
       return { kind: 'folder', path: r.path };
     },
   };

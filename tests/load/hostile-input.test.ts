@@ -1,7 +1,8 @@
 // The reproducers of broken and hostile input: each was accepted (or crashed) before and is now a
 // located input error. Every one is a real job folder, the demo with one thing broken.
 import { describe, expect, it } from 'vitest';
-import { mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, readFileSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { demoCopy, errorsOf, replaceIn, write } from '../helpers/job.js';
 import { jobInputFiles, readJob } from '../../src/load/job.js';
@@ -224,6 +225,21 @@ describe('reads stay inside the job folder', () => {
     expect(readJob(linked).notes?.text).toBe('Linked notes.\n');
     rmSync(join(job, 'docs', 'notes.md'));
     only(linked, 'notes.md:1:1: a link to nothing (a broken symlink)');
+  });
+  it('refuses readings/ linking to a folder outside the job, and a pipe among the readings; reads readings/ linking inside', () => {
+    const job = demoCopy();
+    const elsewhere = join(job, '..', '..', 'elsewhere-readings');
+    renameSync(join(job, 'readings'), elsewhere);
+    symlinkSync(elsewhere, join(job, 'readings'));
+    const errors = only(job, 'readings:1:1: readings: a link to a folder outside the job folder');
+    expect(errors.filter((e) => e.startsWith('readings/'))).toEqual([]);
+    rmSync(join(job, 'readings'));
+    renameSync(elsewhere, join(job, 'data'));
+    symlinkSync(join(job, 'data'), join(job, 'readings'));
+    expect(errorsOf(job)).toEqual([]);
+    expect(readJob(job).sessions.length).toBeGreaterThan(0);
+    expect(spawnSync('mkfifo', [join(job, 'data', '2026-11-21.csv')]).status).toBe(0);
+    only(job, 'readings/2026-11-21.csv:1:1: not a regular file (a device, pipe or socket)');
   });
   it('refuses a theme outside the firm folder that holds the jobs', () => {
     for (const theme of ['../../../../../../../../etc', '/usr/share']) {
