@@ -16,7 +16,7 @@ import { inspectJob, type IssuedRevision, type JobArchive } from './archive/veri
 import { knownHashes } from './archive/known.js';
 import { jobInputFiles } from './load/job.js';
 import { changesSince } from './archive/previous.js';
-import { outputStats, readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
+import { outputStats, stampBytes, stampMemo, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { mayHaveChanged } from './archive/touched.js';
 import { writeSite, type SiteSource } from './archive/site.js';
@@ -84,13 +84,14 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
   return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
 }
 
-/** Memoised per build: the archive settings of a job folder's holder, and what the archive holds for a job. */
+/** Memoised per build: the archive settings of a job folder's holder, what the archive holds for a job, and each draft's stamp. */
 function lookups(override: string | null, out: string) {
   const settings = new Map<string, ArchiveSettings>();
   const archives = new Map<string, JobArchive>();
   const known = knownHashes(out);
   return {
     known,
+    stamps: stampMemo(),
     settingsOf: (dir: string): ArchiveSettings => {
       const holder = resolve(dir, '..');
       let s = settings.get(holder);
@@ -111,8 +112,7 @@ function lookups(override: string | null, out: string) {
  * archive and latest revision are those its draft's stamp records, and the draft's files are as
  * written, the draft is up to date and the job is not read, checked or rendered again.
  */
-function unchanged(dir: string, target: string, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string): Stamp | null {
-  const stamp = readStamp(target);
+function unchanged(dir: string, target: string, stamp: Stamp | null, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string): Stamp | null {
   const source = stamp?.source;
   if (!stamp || !source || source.dir !== resolve(dir) || stamp.archive !== archive) return null;
   const files = jobInputFiles(dir);
@@ -159,7 +159,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       names.set(name, dir);
       const where = look.settingsOf(dir);
       const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
-      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
+      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), look.stamps.of(draftOf(name)), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
         sources.push({ job: name, archive: where.archive });
         result.skipped.push({ job: name, dir: draftOf(name) });
         progress.tick(name);
@@ -185,7 +185,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         base_revision: latest?.number ?? null,
         pdf: printer !== null,
       };
-      if (!opts.force && upToDate(target, readStamp(target), fingerprint)) {
+      if (!opts.force && upToDate(target, look.stamps.of(target), fingerprint)) {
         result.skipped.push({ job: project.name, dir: target });
         progress.tick(project.name);
         continue;
@@ -194,16 +194,21 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
 
       outDir(out, project.name, 'draft');
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
+      look.stamps.wrote(target, null);
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
       result.built.push(built);
       const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({
-        format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
-        date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
-      }));
+      const stamp = () => {
+        const text = stampBytes({
+          format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
+          date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
+        });
+        writeReplacing(join(target, STAMP_FILE), text);
+        look.stamps.wrote(target, text);
+      };
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
@@ -235,7 +240,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   closing?.catch(() => undefined); // (a failure is thrown below, once the site is written, not reported as unhandled meanwhile)
   await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
   try {
-    if (opts.site !== false) writeSite(out, sources, look.inspect);
+    if (opts.site !== false) writeSite(out, sources, look.inspect, look.stamps.of);
     else outDir(out);
     look.known.save();
   } finally {

@@ -42,10 +42,30 @@ export type Stamp = z.output<typeof StampSchema>;
 
 export function readStamp(draftDir: string): Stamp | null {
   const path = join(draftDir, STAMP_FILE);
-  if (!existsSync(path)) return null;
-  const parsed = parseJson(readFileSync(path, 'utf8'));
+  return existsSync(path) ? parseStamp(readFileSync(path, 'utf8')) : null;
+}
+
+/** A stamp's text read back, or null where it is not one. */
+export function parseStamp(text: string): Stamp | null {
+  const parsed = parseJson(text);
   const r = parsed.ok ? StampSchema.safeParse(parsed.value) : null;
   return r?.success ? r.data : null;
+}
+
+/** What a stamp of each draft folder holds: read once per run (remembered), or as this run wrote it (`wrote`). */
+export function stampMemo() {
+  const stamps = new Map<string, Stamp | null>();
+  return {
+    of(draftDir: string): Stamp | null {
+      let s = stamps.get(draftDir);
+      if (s === undefined) stamps.set(draftDir, (s = readStamp(draftDir)));
+      return s;
+    },
+    /** the stamp removed (null) or its text written */
+    wrote(draftDir: string, text: string | null): void {
+      stamps.set(draftDir, text === null ? null : parseStamp(text));
+    },
+  };
 }
 
 export const stampBytes = (s: Stamp): string => `${JSON.stringify(s, null, 2)}\n`;
