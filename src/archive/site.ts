@@ -15,6 +15,7 @@ import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
 import { parseJson } from './json.js';
 import { withCsp } from '../render/csp.js';
+import { sitePages } from './site-pages.js';
 
 export interface SitePack {
   name: string;
@@ -224,8 +225,17 @@ export function writeSite(out: string, sources: SiteSource[] = [], inspect: Insp
   for (const a of new Set(sources.map((s) => s.archive))) for (const j of archiveJobs(a)) where.set(j, a);
   for (const s of sources) where.set(s.job, s.archive);
   const jobs = [...where].map(([j, a]) => siteJob(out, j, a, inspect, stampOf)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) writeChanged(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
-  writeChanged(join(out, 'index.html'), renderIndex(jobs));
+  const pages = sitePages(out); // a page whose input is as when it was written is not rendered again
+  for (const j of jobs) {
+    if (pages.current([j.job, 'index.html'], j)) continue;
+    writeChanged(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
+    pages.wrote([j.job, 'index.html']);
+  }
+  if (!pages.current(['index.html'], [...jobs].sort((a, b) => a.job.localeCompare(b.job)))) {
+    writeChanged(join(out, 'index.html'), renderIndex(jobs));
+    pages.wrote(['index.html']);
+  }
+  pages.save();
   return jobs;
 }
 
