@@ -137,38 +137,45 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const printer = opts.printer !== undefined ? opts.printer : chromium ? lazyPrinter(chromium, opts.poolSize) : null;
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
-  const names = new Map<string, string>();
   const sources: SiteSource[] = [];
   const look = lookups(opts.archive ?? null, out);
   const nameOf = (dir: string) => basename(resolve(dir));
   const draftOf = (name: string) => join(out, name, 'draft');
-  // Chromium takes seconds to start: begin now, alongside the look at every job, when a glance
+  const first = new Map<string, number>(); // a job's name → the first job folder of the build with it
+  opts.jobs.forEach((dir, i) => { if (!first.has(nameOf(dir))) first.set(nameOf(dir), i); });
+  // The jobs a glance at modification times says may have changed are looked at first, so a
+  // re-tested job's pack prints while the others are hashed (and the results keep the jobs' order).
+  const glance = opts.jobs.map((dir) => opts.force === true || (printer !== null && mayHaveChanged(dir, draftOf(nameOf(dir)))));
+  const order = [...opts.jobs.keys()].sort((x, y) => Number(glance[y]) - Number(glance[x]) || x - y);
+  const rank = new Map<object, number>();
+  const add = <T extends object>(list: T[], entry: T, i: number): T => (rank.set(entry, i), list.push(entry), entry);
+  // Chromium takes seconds to start: begin now, alongside the look at every job, when the glance
   // says some pack will need printing (closed unused if the look finds none does)
-  if (printer?.warm && (opts.force || opts.jobs.some((dir) => mayHaveChanged(dir, draftOf(nameOf(dir)))))) printer.warm();
+  if (printer?.warm && glance.some(Boolean)) printer.warm();
   try {
-    for (const dir of opts.jobs) {
+    for (const i of order) {
+      const dir = opts.jobs[i]!;
       if (printing.length > 0) await new Promise((r) => setImmediate(r)); // let the printer start while unchanged jobs are looked at
       const name = nameOf(dir);
-      const twin = names.get(name);
-      if (twin !== undefined) {
-        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
-        result.invalid.push({ job: name, errors: [e] });
+      const twin = first.get(name)!;
+      if (twin !== i) {
+        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${opts.jobs[twin]}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
+        add(result.invalid, { job: name, errors: [e] }, i);
         log(formatError(e));
         continue;
       }
-      names.set(name, dir);
       const where = look.settingsOf(dir);
       const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
       if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), look.stamps.of(draftOf(name)), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
         sources.push({ job: name, archive: where.archive });
-        result.skipped.push({ job: name, dir: draftOf(name) });
+        add(result.skipped, { job: name, dir: draftOf(name) }, i);
         progress.tick(name);
         continue;
       }
       const job = loadJob(dir, opts.today ? { today: opts.today } : {});
       if (!job.ok || where.errors.length > 0) {
         const errors = [...where.errors, ...(job.ok ? [] : job.errors)];
-        result.invalid.push({ job: job.raw.name, errors });
+        add(result.invalid, { job: job.raw.name, errors }, i);
         for (const e of errors) log(`${job.raw.name}/${formatError(e)}`);
         progress.tick(job.raw.name);
         continue;
@@ -186,7 +193,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         pdf: printer !== null,
       };
       if (!opts.force && upToDate(target, look.stamps.of(target), fingerprint)) {
-        result.skipped.push({ job: project.name, dir: target });
+        add(result.skipped, { job: project.name, dir: target }, i);
         progress.tick(project.name);
         continue;
       }
@@ -198,8 +205,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
-      const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
-      result.built.push(built);
+      const built = add(result.built, { job: project.name, html: htmlPath, pdf: null as string | null }, i);
       const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
       const stamp = () => {
         const text = stampBytes({
@@ -236,6 +242,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     throw e;
   }
   progress.done();
+  for (const list of [result.built, result.skipped, result.invalid] as object[][]) list.sort((p, q) => rank.get(p)! - rank.get(q)!);
   const closing = printer?.close(); // Chromium ends while the site is written
   closing?.catch(() => undefined); // (a failure is thrown below, once the site is written, not reported as unhandled meanwhile)
   await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
