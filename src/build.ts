@@ -14,7 +14,7 @@ import { packData, dataBytes } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
 import { inspectJob, type IssuedRevision, type JobArchive } from './archive/verify.js';
 import { knownHashes } from './archive/known.js';
-import { jobInputFiles } from './load/job.js';
+import { firmBytesOf, jobInputFiles, type FirmBytes } from './load/job.js';
 import { changesSince } from './archive/previous.js';
 import { outputStats, stampBytes, stampMemo, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
@@ -89,9 +89,25 @@ function lookups(override: string | null, out: string) {
   const settings = new Map<string, ArchiveSettings>();
   const archives = new Map<string, JobArchive>();
   const known = knownHashes(out);
+  const firms = new Map<string, ReturnType<FirmBytes> | Error>();
   return {
     known,
     stamps: stampMemo(),
+    /** the firm file of a job folder's holder, read once */
+    firmOf: (dir: string): ReturnType<FirmBytes> => {
+      const holder = resolve(dir, '..');
+      let f = firms.get(holder);
+      if (f === undefined) {
+        try {
+          f = firmBytesOf(dir);
+        } catch (e) {
+          f = e instanceof Error ? e : new Error(String(e));
+        }
+        firms.set(holder, f);
+      }
+      if (f instanceof Error) throw f;
+      return f;
+    },
     settingsOf: (dir: string): ArchiveSettings => {
       const holder = resolve(dir, '..');
       let s = settings.get(holder);
@@ -112,10 +128,10 @@ function lookups(override: string | null, out: string) {
  * archive and latest revision are those its draft's stamp records, and the draft's files are as
  * written, the draft is up to date and the job is not read, checked or rendered again.
  */
-function unchanged(dir: string, target: string, stamp: Stamp | null, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string): Stamp | null {
+function unchanged(dir: string, target: string, stamp: Stamp | null, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string, firmOf: FirmBytes): Stamp | null {
   const source = stamp?.source;
   if (!stamp || !source || source.dir !== resolve(dir) || stamp.archive !== archive) return null;
-  const files = jobInputFiles(dir);
+  const files = jobInputFiles(dir, firmOf);
   if (!files) return null;
   const want: Fingerprint = {
     packsmith: buildId(),
@@ -145,13 +161,20 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   opts.jobs.forEach((dir, i) => { if (!first.has(nameOf(dir))) first.set(nameOf(dir), i); });
   // The jobs a glance at modification times says may have changed are looked at first, so a
   // re-tested job's pack prints while the others are hashed (and the results keep the jobs' order).
-  const glance = opts.jobs.map((dir) => opts.force === true || (printer !== null && mayHaveChanged(dir, draftOf(nameOf(dir)))));
+  // Chromium takes seconds to start: it begins as soon as the glance says some pack will need
+  // printing, alongside the look at every job (closed unused if the look finds none does)
+  let warmed = false;
+  const glance = opts.jobs.map((dir) => {
+    const maybe = opts.force === true || (printer !== null && mayHaveChanged(dir, draftOf(nameOf(dir))));
+    if (maybe && !warmed) {
+      warmed = true;
+      printer?.warm?.();
+    }
+    return maybe;
+  });
   const order = [...opts.jobs.keys()].sort((x, y) => Number(glance[y]) - Number(glance[x]) || x - y);
   const rank = new Map<object, number>();
   const add = <T extends object>(list: T[], entry: T, i: number): T => (rank.set(entry, i), list.push(entry), entry);
-  // Chromium takes seconds to start: begin now, alongside the look at every job, when the glance
-  // says some pack will need printing (closed unused if the look finds none does)
-  if (printer?.warm && glance.some(Boolean)) printer.warm();
   try {
     for (const i of order) {
       const dir = opts.jobs[i]!;
@@ -166,7 +189,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       }
       const where = look.settingsOf(dir);
       const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
-      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), look.stamps.of(draftOf(name)), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
+      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), look.stamps.of(draftOf(name)), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash, look.firmOf)) {
         sources.push({ job: name, archive: where.archive });
         add(result.skipped, { job: name, dir: draftOf(name) }, i);
         progress.tick(name);

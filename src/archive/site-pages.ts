@@ -3,8 +3,9 @@
 // where its row changed). Kept in the output folder as a dot-file the site ignores: for each page,
 // a hash of its input (the page's data) and the page's size and modification time as written, all
 // under packsmith's build id. A page is taken as current only when its input hash, size and time
-// all match and every folder on its way is a real folder; a record that is missing, unreadable or
-// of other code means every page is rendered (and written only where it differs), as without one.
+// all match (and it is a plain file); a record that is missing, unreadable or of other code means
+// every page is rendered (and written only where it differs), as without one. A page taken as
+// current is not written, so nothing is written through a folder that is not packsmith's.
 import { lstatSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { sha256 } from './hash.js';
@@ -29,20 +30,14 @@ function readRecord(path: string, renderer: string): Record<string, unknown> | n
   return null;
 }
 
-/** A page's size and time, where every folder on the way (inside the output folder) is a real folder and the page a plain file. */
+/** A page's size and time, where it is a plain file (not a link). */
 function pageStat(out: string, segments: string[]): [number, number] | null {
-  let path = out;
   try {
-    for (const [i, s] of segments.entries()) {
-      path = join(path, s);
-      const st = lstatSync(path);
-      if (i < segments.length - 1 ? !st.isDirectory() : !st.isFile()) return null;
-      if (i === segments.length - 1) return [st.size, st.mtimeMs];
-    }
+    const st = lstatSync(join(out, ...segments));
+    return st.isFile() ? [st.size, st.mtimeMs] : null;
   } catch {
-    /* not there */
+    return null;
   }
-  return null;
 }
 
 const plain = (s: string): boolean => s !== '' && s !== '.' && s !== '..' && !/[\\/]/.test(s);

@@ -142,6 +142,14 @@ export function readJob(dir: string): RawJob {
   return job;
 }
 
+/** The firm file that applies to a job folder and its bytes, read confined to its folder (throws where refused); null: none. */
+export type FirmBytes = (jobDir: string) => { path: string; bytes: Buffer } | null;
+
+export const firmBytesOf: FirmBytes = (jobDir) => {
+  const path = findFirmFile(jobDir);
+  return path === null ? null : { path, bytes: firmFileBytes(path) };
+};
+
 /**
  * The bytes of every file a job's inputs may come from, read as readJob reads them but not
  * parsed: project.yaml, circuits.csv, notes.md, everything in readings/ and the firm file. For a
@@ -149,7 +157,7 @@ export function readJob(dir: string): RawJob {
  * the build's quick look at whether a job changed since its draft. null where a file is refused
  * (the firm file too: read confined to its own folder, as readJob reads it).
  */
-export function jobInputFiles(dir: string): Map<string, Buffer> | null {
+export function jobInputFiles(dir: string, firmOf: FirmBytes = firmBytesOf): Map<string, Buffer> | null {
   const root = resolve(dir);
   const inJob = confinedTo(root, JOB_FOLDER);
   const files = new Map<string, Buffer>();
@@ -162,8 +170,8 @@ export function jobInputFiles(dir: string): Map<string, Buffer> | null {
     const readings = inJob.folder('readings');
     if (readings.kind === 'refused') return null;
     if (readings.kind === 'folder') readdirSync(readings.path).forEach((name) => take(`readings/${name}`));
-    const firm = findFirmFile(root);
-    if (firm !== null) files.set(relative(root, firm), firmFileBytes(firm));
+    const firm = firmOf(root);
+    if (firm !== null) files.set(relative(root, firm.path), firm.bytes);
   } catch {
     return null;
   }
