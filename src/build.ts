@@ -14,9 +14,9 @@ import { packData, dataBytes } from './archive/data.js';
 import { combinedHash, fileHashes, sha256 } from './archive/hash.js';
 import { inspectJob, type IssuedRevision, type JobArchive } from './archive/verify.js';
 import { knownHashes } from './archive/known.js';
-import { jobInputFiles } from './load/job.js';
+import { firmBytesOf, jobInputFiles, type FirmBytes } from './load/job.js';
 import { changesSince } from './archive/previous.js';
-import { outputStats, readStamp, stampBytes, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
+import { outputStats, stampBytes, stampMemo, upToDate, STAMP_FILE, type Fingerprint, type Stamp } from './archive/fingerprint.js';
 import { writeReplacing } from './archive/files.js';
 import { mayHaveChanged } from './archive/touched.js';
 import { writeSite, type SiteSource } from './archive/site.js';
@@ -84,13 +84,30 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
   return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
 }
 
-/** Memoised per build: the archive settings of a job folder's holder, and what the archive holds for a job. */
+/** Memoised per build: the archive settings of a job folder's holder, what the archive holds for a job, and each draft's stamp. */
 function lookups(override: string | null, out: string) {
   const settings = new Map<string, ArchiveSettings>();
   const archives = new Map<string, JobArchive>();
   const known = knownHashes(out);
+  const firms = new Map<string, ReturnType<FirmBytes> | Error>();
   return {
     known,
+    stamps: stampMemo(),
+    /** the firm file of a job folder's holder, read once */
+    firmOf: (dir: string): ReturnType<FirmBytes> => {
+      const holder = resolve(dir, '..');
+      let f = firms.get(holder);
+      if (f === undefined) {
+        try {
+          f = firmBytesOf(dir);
+        } catch (e) {
+          f = e instanceof Error ? e : new Error(String(e));
+        }
+        firms.set(holder, f);
+      }
+      if (f instanceof Error) throw f;
+      return f;
+    },
     settingsOf: (dir: string): ArchiveSettings => {
       const holder = resolve(dir, '..');
       let s = settings.get(holder);
@@ -111,11 +128,10 @@ function lookups(override: string | null, out: string) {
  * archive and latest revision are those its draft's stamp records, and the draft's files are as
  * written, the draft is up to date and the job is not read, checked or rendered again.
  */
-function unchanged(dir: string, target: string, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string): Stamp | null {
-  const stamp = readStamp(target);
+function unchanged(dir: string, target: string, stamp: Stamp | null, archive: string, latest: number | null, given: Pick<BuildOptions, 'theme' | 'paper'>, printing: boolean, treeHash: (dir: string) => string, firmOf: FirmBytes): Stamp | null {
   const source = stamp?.source;
   if (!stamp || !source || source.dir !== resolve(dir) || stamp.archive !== archive) return null;
-  const files = jobInputFiles(dir);
+  const files = jobInputFiles(dir, firmOf);
   if (!files) return null;
   const want: Fingerprint = {
     packsmith: buildId(),
@@ -137,38 +153,52 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
   const printer = opts.printer !== undefined ? opts.printer : chromium ? lazyPrinter(chromium, opts.poolSize) : null;
   const printing: Promise<void>[] = [];
   const progress = progressLine(opts.jobs.length, opts.progress ?? process.stderr);
-  const names = new Map<string, string>();
   const sources: SiteSource[] = [];
   const look = lookups(opts.archive ?? null, out);
   const nameOf = (dir: string) => basename(resolve(dir));
   const draftOf = (name: string) => join(out, name, 'draft');
-  // Chromium takes seconds to start: begin now, alongside the look at every job, when a glance
-  // says some pack will need printing (closed unused if the look finds none does)
-  if (printer?.warm && (opts.force || opts.jobs.some((dir) => mayHaveChanged(dir, draftOf(nameOf(dir)))))) printer.warm();
+  const first = new Map<string, number>(); // a job's name → the first job folder of the build with it
+  opts.jobs.forEach((dir, i) => { if (!first.has(nameOf(dir))) first.set(nameOf(dir), i); });
+  // The jobs a glance at modification times says may have changed are looked at first, so a
+  // re-tested job's pack prints while the others are hashed (and the results keep the jobs' order).
+  // Chromium takes seconds to start: it begins as soon as the glance says some pack will need
+  // printing, alongside the look at every job (closed unused if the look finds none does)
+  let warmed = false;
+  const glance = opts.jobs.map((dir) => {
+    const maybe = opts.force === true || (printer !== null && mayHaveChanged(dir, draftOf(nameOf(dir))));
+    if (maybe && !warmed) {
+      warmed = true;
+      printer?.warm?.();
+    }
+    return maybe;
+  });
+  const order = [...opts.jobs.keys()].sort((x, y) => Number(glance[y]) - Number(glance[x]) || x - y);
+  const rank = new Map<object, number>();
+  const add = <T extends object>(list: T[], entry: T, i: number): T => (rank.set(entry, i), list.push(entry), entry);
   try {
-    for (const dir of opts.jobs) {
+    for (const i of order) {
+      const dir = opts.jobs[i]!;
       if (printing.length > 0) await new Promise((r) => setImmediate(r)); // let the printer start while unchanged jobs are looked at
       const name = nameOf(dir);
-      const twin = names.get(name);
-      if (twin !== undefined) {
-        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${twin}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
-        result.invalid.push({ job: name, errors: [e] });
+      const twin = first.get(name)!;
+      if (twin !== i) {
+        const e = { file: dir, row: 1, column: 1, message: `another job folder of this build, ${opts.jobs[twin]}, has the same name; a job's name is its folder's name and its packs go to DIR/${name}/` };
+        add(result.invalid, { job: name, errors: [e] }, i);
         log(formatError(e));
         continue;
       }
-      names.set(name, dir);
       const where = look.settingsOf(dir);
       const latestOf = () => look.inspect(where.archive, name).revisions.at(-1) ?? null;
-      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash)) {
+      if (!opts.force && where.errors.length === 0 && unchanged(dir, draftOf(name), look.stamps.of(draftOf(name)), where.archive, latestOf()?.number ?? null, opts, printer !== null, treeHash, look.firmOf)) {
         sources.push({ job: name, archive: where.archive });
-        result.skipped.push({ job: name, dir: draftOf(name) });
+        add(result.skipped, { job: name, dir: draftOf(name) }, i);
         progress.tick(name);
         continue;
       }
       const job = loadJob(dir, opts.today ? { today: opts.today } : {});
       if (!job.ok || where.errors.length > 0) {
         const errors = [...where.errors, ...(job.ok ? [] : job.errors)];
-        result.invalid.push({ job: job.raw.name, errors });
+        add(result.invalid, { job: job.raw.name, errors }, i);
         for (const e of errors) log(`${job.raw.name}/${formatError(e)}`);
         progress.tick(job.raw.name);
         continue;
@@ -185,8 +215,8 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
         base_revision: latest?.number ?? null,
         pdf: printer !== null,
       };
-      if (!opts.force && upToDate(target, readStamp(target), fingerprint)) {
-        result.skipped.push({ job: project.name, dir: target });
+      if (!opts.force && upToDate(target, look.stamps.of(target), fingerprint)) {
+        add(result.skipped, { job: project.name, dir: target }, i);
         progress.tick(project.name);
         continue;
       }
@@ -194,16 +224,20 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
 
       outDir(out, project.name, 'draft');
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
+      look.stamps.wrote(target, null);
       const htmlPath = join(target, 'pack.html');
       writeReplacing(htmlPath, pack.html);
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
-      const built: BuildResult['built'][number] = { job: project.name, html: htmlPath, pdf: null };
-      result.built.push(built);
+      const built = add(result.built, { job: project.name, html: htmlPath, pdf: null as string | null }, i);
       const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
-      const stamp = () => writeReplacing(join(target, STAMP_FILE), stampBytes({
-        format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
-        date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
-      }));
+      const stamp = () => {
+        const text = stampBytes({
+          format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
+          date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
+        });
+        writeReplacing(join(target, STAMP_FILE), text);
+        look.stamps.wrote(target, text);
+      };
       if (printer) {
         const pdfPath = join(target, 'pack.pdf');
         printing.push(packPdf(printer, htmlPath, project, { ...label, date: pdfDate(date) }, pack, style.paper, data).then((pdf) => {
@@ -231,11 +265,12 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
     throw e;
   }
   progress.done();
+  for (const list of [result.built, result.skipped, result.invalid] as object[][]) list.sort((p, q) => rank.get(p)! - rank.get(q)!);
   const closing = printer?.close(); // Chromium ends while the site is written
   closing?.catch(() => undefined); // (a failure is thrown below, once the site is written, not reported as unhandled meanwhile)
   await new Promise((r) => setImmediate(r)); // (its end begun before the site's work takes the thread)
   try {
-    if (opts.site !== false) writeSite(out, sources, look.inspect);
+    if (opts.site !== false) writeSite(out, sources, look.inspect, look.stamps.of);
     else outDir(out);
     look.known.save();
   } finally {

@@ -9,7 +9,7 @@ import type { Changes } from './render/view.js';
 import { BUILTIN_TEMPLATES, type Engine } from './render/engine.js';
 import { renderPackFiles, type RenderedPack } from './render/pack.js';
 import { clearStaleProfiles, launchBrowser, type PrintBrowser } from './print/browser.js';
-import { createPrintPool, type PrintPool } from './print/pool.js';
+import { createPrintPool, defaultPoolSize, type PrintPool } from './print/pool.js';
 import type { PdfMetadata } from './print/metadata.js';
 import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
 import { VERSION } from './version.js';
@@ -130,10 +130,30 @@ function browserFor(chromium: string): Promise<PrintBrowser> {
 export function lazyPrinter(chromium: string, poolSize?: number): Printer {
   clearStaleProfiles(); // what runs killed outright left, printing or not this time
   let started: Promise<{ browser: PrintBrowser; pool: PrintPool; own: boolean }> | null = null;
-  const start = () => (started ??= browserFor(chromium).then((browser) => ({ browser, pool: createPrintPool(browser.browser, poolSize), own: shared === null })));
+  let ready: PrintPool | null = null;
+  let early = 0; // packs handed over while Chromium starts
+  const start = () => (started ??= browserFor(chromium).then((browser) => {
+    ready = createPrintPool(browser.browser, poolSize);
+    return { browser, pool: ready, own: shared === null };
+  }));
   return {
-    print: async (htmlPath, opts) => (await start()).pool.print(htmlPath, opts),
-    room: async () => { if (started) await (await started).pool.room(); },
+    print: async (htmlPath, opts) => {
+      early++;
+      let s;
+      try {
+        s = await start();
+      } finally {
+        early--;
+      }
+      return s.pool.print(htmlPath, opts);
+    },
+    // while Chromium starts, the build goes on (looking at the other jobs) with as many packs
+    // handed over as the pool would hold queued, instead of waiting for the start
+    room: async () => {
+      if (!started) return;
+      if (!ready && early < (poolSize ?? defaultPoolSize()) * 2) return;
+      await (await started).pool.room();
+    },
     warm: () => {
       // a failed start is reported by the first print that needs it, not here
       start().then(({ pool }) => pool.warm(), () => undefined);

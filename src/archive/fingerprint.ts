@@ -1,7 +1,7 @@
 // What a draft was built from (draft/build.json): packsmith's version, the input hash, the
 // templates, the revision its changes section compares with, and the hashes of what was written.
 // A build whose fingerprint matches, with its files intact, need not run again.
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { z } from 'zod';
 import { sha256 } from './hash.js';
@@ -41,11 +41,36 @@ const StampSchema = z.object({
 export type Stamp = z.output<typeof StampSchema>;
 
 export function readStamp(draftDir: string): Stamp | null {
-  const path = join(draftDir, STAMP_FILE);
-  if (!existsSync(path)) return null;
-  const parsed = parseJson(readFileSync(path, 'utf8'));
+  let text: string;
+  try {
+    text = readFileSync(join(draftDir, STAMP_FILE), 'utf8');
+  } catch {
+    return null; // none (or unreadable): the draft is built again
+  }
+  return parseStamp(text);
+}
+
+/** A stamp's text read back, or null where it is not one. */
+export function parseStamp(text: string): Stamp | null {
+  const parsed = parseJson(text);
   const r = parsed.ok ? StampSchema.safeParse(parsed.value) : null;
   return r?.success ? r.data : null;
+}
+
+/** What a stamp of each draft folder holds: read once per run (remembered), or as this run wrote it (`wrote`). */
+export function stampMemo() {
+  const stamps = new Map<string, Stamp | null>();
+  return {
+    of(draftDir: string): Stamp | null {
+      let s = stamps.get(draftDir);
+      if (s === undefined) stamps.set(draftDir, (s = readStamp(draftDir)));
+      return s;
+    },
+    /** the stamp removed (null) or its text written */
+    wrote(draftDir: string, text: string | null): void {
+      stamps.set(draftDir, text === null ? null : parseStamp(text));
+    },
+  };
 }
 
 export const stampBytes = (s: Stamp): string => `${JSON.stringify(s, null, 2)}\n`;
@@ -59,12 +84,14 @@ export function upToDate(draftDir: string, stamp: Stamp | null, want: Fingerprin
   if (!same) return false;
   return Object.entries(stamp.outputs).every(([name, hash]) => {
     const path = join(draftDir, name);
-    if (!existsSync(path)) return false;
-    const was = stamp.output_stats?.[name];
-    if (was) {
-      const st = statSync(path);
-      return st.size === was[0] && st.mtimeMs === was[1];
+    let st;
+    try {
+      st = statSync(path);
+    } catch {
+      return false; // missing (or unreadable): built again
     }
+    const was = stamp.output_stats?.[name];
+    if (was) return st.size === was[0] && st.mtimeMs === was[1];
     return sha256(readFileSync(path)) === hash;
   });
 }

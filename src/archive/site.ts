@@ -10,11 +10,12 @@ import Handlebars from 'handlebars';
 import type { Summary } from '../calc/types.js';
 import { overallStatus, STATUS_LOOK } from '../render/status.js';
 import { archiveJobs, inspectJob, type JobArchive } from './verify.js';
-import { readStamp } from './fingerprint.js';
+import { readStamp, type Stamp } from './fingerprint.js';
 import { revisionDirName } from './revisions.js';
 import { writeReplacing } from './files.js';
 import { parseJson } from './json.js';
 import { withCsp } from '../render/csp.js';
+import { sitePages } from './site-pages.js';
 
 export interface SitePack {
   name: string;
@@ -72,9 +73,12 @@ export type Inspect = (archive: string, job: string) => Pick<JobArchive, 'revisi
 const linkTo = (out: string, job: string, archive: string, file: string): string =>
   relative(join(out, job), join(archive, job, file)).split('\\').join('/');
 
+/** A draft folder's stamp (the build passes its own, which reads each once). */
+export type StampOf = (draftDir: string) => Stamp | null;
+
 /** What the archive holds for one job (its manifests) and its draft in `out` (its build.json). Links are relative to out/<job>/. */
-export function siteJob(out: string, job: string, archiveDir: string | null = null, inspect: Inspect = inspectJob): SiteJob | null {
-  const stamp = readStamp(join(out, job, 'draft'));
+export function siteJob(out: string, job: string, archiveDir: string | null = null, inspect: Inspect = inspectJob, stampOf: StampOf = readStamp): SiteJob | null {
+  const stamp = stampOf(join(out, job, 'draft'));
   const where = archiveDir ?? stamp?.archive ?? null;
   const archive = where ? inspect(where, job) : { revisions: [], findings: [] };
   if (archive.revisions.length === 0 && !stamp) return null;
@@ -212,7 +216,7 @@ export const renderJobPage = (job: SiteJob): string => withCsp(jobPage(job));
  * Write the site in `out`: every job with a draft there (its build.json names its archive), every
  * job of `sources`, and every other job of their archive folders.
  */
-export function writeSite(out: string, sources: SiteSource[] = [], inspect: Inspect = inspectJob): SiteJob[] {
+export function writeSite(out: string, sources: SiteSource[] = [], inspect: Inspect = inspectJob, stampOf: StampOf = readStamp): SiteJob[] {
   outDir(out);
   const where = new Map<string, string | null>();
   for (const name of readdirSync(out, { withFileTypes: true })) {
@@ -220,9 +224,18 @@ export function writeSite(out: string, sources: SiteSource[] = [], inspect: Insp
   }
   for (const a of new Set(sources.map((s) => s.archive))) for (const j of archiveJobs(a)) where.set(j, a);
   for (const s of sources) where.set(s.job, s.archive);
-  const jobs = [...where].map(([j, a]) => siteJob(out, j, a, inspect)).filter((j): j is SiteJob => j !== null);
-  for (const j of jobs) writeChanged(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
-  writeChanged(join(out, 'index.html'), renderIndex(jobs));
+  const jobs = [...where].map(([j, a]) => siteJob(out, j, a, inspect, stampOf)).filter((j): j is SiteJob => j !== null);
+  const pages = sitePages(out); // a page whose input is as when it was written is not rendered again
+  for (const j of jobs) {
+    if (pages.current([j.job, 'index.html'], j)) continue;
+    writeChanged(join(outDir(out, j.job), 'index.html'), renderJobPage(j));
+    pages.wrote([j.job, 'index.html']);
+  }
+  if (!pages.current(['index.html'], [...jobs].sort((a, b) => a.job.localeCompare(b.job)))) {
+    writeChanged(join(out, 'index.html'), renderIndex(jobs));
+    pages.wrote(['index.html']);
+  }
+  pages.save();
   return jobs;
 }
 

@@ -1,7 +1,15 @@
 // A generated archive for the bench: N invented jobs of 10–40 circuits on 1–3 boards, each with a
 // test session and some with a re-test. Deterministic (seeded), so every run builds the same jobs.
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+
+/** Write a file where its text differs: generated again, an archive keeps its files' times, as a real one does between re-tests. */
+function put(path: string, text: string): void {
+  try {
+    if (readFileSync(path, 'utf8') === text) return;
+  } catch { /* not there yet */ }
+  writeFileSync(path, text);
+}
 
 /** mulberry32: a small seeded generator (bench data only; nothing here needs real randomness). */
 function random(seed: number): () => number {
@@ -49,7 +57,7 @@ export function generateArchive(root: string, count: number, seed = 7, size: Job
     mkdirSync(join(dir, 'readings'), { recursive: true });
     const boards = Array.from({ length: int(bLo, bHi) }, (_, b) => `DB${b + 1}`);
     const ze = (0.15 + rnd() * 0.25).toFixed(2);
-    writeFileSync(join(dir, 'project.yaml'), [
+    put(join(dir, 'project.yaml'), [
       '# Generated bench job: an invented scenario.',
       `title: ${q(`Bench job ${j}, unit ${int(1, 40)} ${pick(['Mill Lane', 'Quarry Road', 'Harbour Walk', 'Station Yard'])}`)}`,
       `client: { name: ${q(`Bench Client ${j} Ltd`)} }`,
@@ -81,10 +89,10 @@ export function generateArchive(root: string, count: number, seed = 7, size: Job
         rcd ? int(15, 35) : '', rcd ? int(7, 15) : '', rcd ? 'ok' : '', 'B. Tester'].join(','));
       if (rnd() < 0.05) retest.push([board, c, (Number(zs) * 0.97).toFixed(2), (Number(r1r2) * 0.97).toFixed(2), 'B. Tester'].join(','));
     }
-    writeFileSync(join(dir, 'circuits.csv'), `${circuitRows.join('\n')}\n`);
-    writeFileSync(join(dir, 'readings/2026-01-16.csv'), `${readingRows.join('\n')}\n`);
-    if (retest.length > 1) writeFileSync(join(dir, 'readings/2026-01-23-retest.csv'), `${retest.join('\n')}\n`);
-    writeFileSync(join(dir, 'notes.md'), `## Scope\n\nGenerated job ${j} for the bench: ${n} circuits on ${boards.length} board(s).\n`);
+    put(join(dir, 'circuits.csv'), `${circuitRows.join('\n')}\n`);
+    put(join(dir, 'readings/2026-01-16.csv'), `${readingRows.join('\n')}\n`);
+    if (retest.length > 1) put(join(dir, 'readings/2026-01-23-retest.csv'), `${retest.join('\n')}\n`);
+    put(join(dir, 'notes.md'), `## Scope\n\nGenerated job ${j} for the bench: ${n} circuits on ${boards.length} board(s).\n`);
     jobs.push(dir);
   }
   return { root, jobs, circuits };

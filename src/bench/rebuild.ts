@@ -1,9 +1,11 @@
 // The rebuild after one re-test alone, several times over, in archives of N jobs: the figure the
 // full bench gives once, repeated so a change can be judged against the machine's noise. The
 // archive and its drafts are laid down once in --root (kept and reused when given), then each run
-// changes one reading of the middle job and times `build`.
+// changes one reading of the middle job and times `build`: its wall time and the CPU time node
+// spent (user + system, this process only: Chromium's is not counted). `--blank` prints with the
+// blank printer instead of Chromium, so the figures are packsmith's own work alone.
 //
-//   node dist/bench/rebuild.js [--jobs 200,1000] [--runs 5] [--root DIR]
+//   node dist/bench/rebuild.js [--jobs 200,1000] [--runs 5] [--root DIR] [--blank]
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join } from 'node:path';
@@ -18,6 +20,16 @@ import { blankPrinter, retest } from './scale.js';
 const quiet = { isTTY: false, write: () => true };
 const seconds = (t0: bigint) => Number(process.hrtime.bigint() - t0) / 1e9;
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+/** CPU seconds (user + system) this process spent since `was`. */
+const cpuSince = (was: NodeJS.CpuUsage) => {
+  const d = process.cpuUsage(was);
+  return (d.user + d.system) / 1e6;
+};
+/** Median, min and max of some seconds. */
+const spread = (t: number[]) => `median ${median(t).toFixed(2)} s, min ${Math.min(...t).toFixed(2)}, max ${Math.max(...t).toFixed(2)}`;
+
+/** One timed rebuild: wall and node CPU seconds. */
+export interface RebuildTime { wall: number; cpu: number }
 
 /** A draft's stamp rewritten as if this packsmith had built it (bench archives only). */
 function adopt(stampPath: string): void {
@@ -28,8 +40,8 @@ function adopt(stampPath: string): void {
   writeFileSync(stampPath, `${JSON.stringify(stamp, null, 2)}\n`);
 }
 
-/** `runs` rebuilds after one re-test in an archive of `count` jobs under `root`: each one's seconds. */
-export async function rebuilds(root: string, count: number, runs: number, say: (s: string) => void): Promise<number[]> {
+/** `runs` rebuilds after one re-test in an archive of `count` jobs under `root` (printed blank with `blank`): each one's seconds. */
+export async function rebuilds(root: string, count: number, runs: number, say: (s: string) => void, blank = false): Promise<RebuildTime[]> {
   const projects = join(root, `projects-${count}`);
   const out = join(root, `out-${count}`);
   const laid = existsSync(join(out, 'index.html'));
@@ -45,20 +57,22 @@ export async function rebuilds(root: string, count: number, runs: number, say: (
     for (const job of archive.jobs) adopt(join(out, basename(job), 'draft', STAMP_FILE));
     await build({ jobs: archive.jobs, out, printer: await blankPrinter(), progress: quiet, log: () => {} });
   }
-  const times: number[] = [];
+  const times: RebuildTime[] = [];
   for (let i = 0; i < runs; i++) {
     retest(archive.jobs[Math.floor(count / 2)]!);
+    const printer = blank ? await blankPrinter() : undefined;
+    const cpu = process.cpuUsage();
     const t = process.hrtime.bigint();
-    const r = await build({ jobs: archive.jobs, out, progress: quiet, log: () => {} });
-    times.push(seconds(t));
+    const r = await build({ jobs: archive.jobs, out, progress: quiet, log: () => {}, ...(printer ? { printer } : {}) });
+    times.push({ wall: seconds(t), cpu: cpuSince(cpu) });
     const printed = r.built.filter((b) => b.pdf !== null).length;
-    say(`${count} jobs, run ${i + 1}: ${times.at(-1)!.toFixed(2)} s, ${printed} printed, ${r.skipped.length} skipped`);
+    say(`${count} jobs, run ${i + 1}: ${times.at(-1)!.wall.toFixed(2)} s, node CPU ${times.at(-1)!.cpu.toFixed(2)} s, ${printed} printed${blank ? ' (blank)' : ''}, ${r.skipped.length} skipped`);
   }
   return times;
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200,1000' }, runs: { type: 'string', default: '5' }, root: { type: 'string' } } });
+  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200,1000' }, runs: { type: 'string', default: '5' }, root: { type: 'string' }, blank: { type: 'boolean', default: false } } });
   const sizes = values.jobs.split(',').map(Number);
   const runs = Number(values.runs);
   const root = values.root ?? mkdtempSync(join(tmpdir(), 'packsmith-bench-rebuild-'));
@@ -66,8 +80,10 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   (async () => {
     try {
       for (const n of sizes) {
-        const t = await rebuilds(root, n, runs, say);
-        if (t.length > 0) process.stdout.write(`rebuild after one re-test, ${n} jobs: median ${median(t).toFixed(2)} s, min ${Math.min(...t).toFixed(2)}, max ${Math.max(...t).toFixed(2)} (${t.length} runs)\n`);
+        const t = await rebuilds(root, n, runs, say, values.blank);
+        if (t.length > 0) {
+          process.stdout.write(`rebuild after one re-test, ${n} jobs${values.blank ? ', printed blank' : ''}: ${spread(t.map((x) => x.wall))}; node CPU ${spread(t.map((x) => x.cpu))} (${t.length} runs)\n`);
+        }
       }
     } finally {
       if (!values.root) rmSync(root, { recursive: true, force: true });

@@ -2,13 +2,13 @@
 // The only stage besides archive that touches the file system. Reads are confined to the job
 // folder (confine.ts), text must be UTF-8 (text.ts), and every file in readings/ must be a
 // readings CSV: a file that would be skipped is an error, never a silently missing session.
-import { existsSync, lstatSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, lstatSync, readdirSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
-import { confinedFolder, isInside, readConfined, realFolder } from './confine.js';
+import { confinedTo, isInside, realFolder } from './confine.js';
 import { decodeText } from './text.js';
-import { findFirmFile, readFirm, withFirm } from './firm.js';
+import { findFirmFile, firmFileBytes, readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
 /** A readings file's name: its test date and an optional label. */
@@ -56,11 +56,12 @@ export function readJob(dir: string): RawJob {
     errors.push({ file: dir, row: 1, column: 1, message: 'no job folder here; expected a folder holding project.yaml and circuits.csv' });
     return job;
   }
+  const inJob = confinedTo(root, JOB_FOLDER);
   /** The text of a file of the job, null when missing, undefined when refused (an error, reported here). */
   const read = (rel: string): string | null | undefined => {
     let bytes: Buffer | null;
     try {
-      bytes = readConfined(root, rel, JOB_FOLDER);
+      bytes = inJob.read(rel);
     } catch (e) {
       errors.push({ file: rel, row: 1, column: 1, message: (e as Error).message.slice(rel.length + 2) });
       return undefined;
@@ -109,7 +110,7 @@ export function readJob(dir: string): RawJob {
     for (const x of e) errors.push(x);
   }
 
-  const readingsFolder = confinedFolder(root, 'readings', JOB_FOLDER);
+  const readingsFolder = inJob.folder('readings');
   if (readingsFolder.kind === 'refused') {
     errors.push({ file: 'readings', row: 1, column: 1, message: `readings: ${readingsFolder.message}; readings/ is a folder holding one CSV file per test session` });
   } else if (readingsFolder.kind === 'folder') {
@@ -141,26 +142,36 @@ export function readJob(dir: string): RawJob {
   return job;
 }
 
+/** The firm file that applies to a job folder and its bytes, read confined to its folder (throws where refused); null: none. */
+export type FirmBytes = (jobDir: string) => { path: string; bytes: Buffer } | null;
+
+export const firmBytesOf: FirmBytes = (jobDir) => {
+  const path = findFirmFile(jobDir);
+  return path === null ? null : { path, bytes: firmFileBytes(path) };
+};
+
 /**
  * The bytes of every file a job's inputs may come from, read as readJob reads them but not
  * parsed: project.yaml, circuits.csv, notes.md, everything in readings/ and the firm file. For a
  * job that readJob finds valid, these are exactly its input files, so their hash is its input hash:
- * the build's quick look at whether a job changed since its draft. null where a file is refused.
+ * the build's quick look at whether a job changed since its draft. null where a file is refused
+ * (the firm file too: read confined to its own folder, as readJob reads it).
  */
-export function jobInputFiles(dir: string): Map<string, Buffer> | null {
+export function jobInputFiles(dir: string, firmOf: FirmBytes = firmBytesOf): Map<string, Buffer> | null {
   const root = resolve(dir);
+  const inJob = confinedTo(root, JOB_FOLDER);
   const files = new Map<string, Buffer>();
   const take = (rel: string) => {
-    const bytes = readConfined(root, rel, JOB_FOLDER);
+    const bytes = inJob.read(rel);
     if (bytes !== null) files.set(rel, bytes);
   };
   try {
     ['project.yaml', 'circuits.csv', 'notes.md'].forEach(take);
-    const readings = confinedFolder(root, 'readings', JOB_FOLDER);
+    const readings = inJob.folder('readings');
     if (readings.kind === 'refused') return null;
     if (readings.kind === 'folder') readdirSync(readings.path).forEach((name) => take(`readings/${name}`));
-    const firm = findFirmFile(root);
-    if (firm !== null) files.set(relative(root, firm), readFileSync(firm));
+    const firm = firmOf(root);
+    if (firm !== null) files.set(relative(root, firm.path), firm.bytes);
   } catch {
     return null;
   }

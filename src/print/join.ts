@@ -12,7 +12,7 @@
 // 0.3 GB for a 500-circuit pack, growing with every part.
 import { closeSync, openSync, writeSync } from 'node:fs';
 import {
-  PDFArray, PDFContext, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFRawStream, PDFRef, PDFString,
+  PDFArray, PDFContext, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFRawStream, PDFRef, PDFString, ParseSpeeds,
   decodePDFRawStream, type PDFObject,
 } from 'pdf-lib';
 import { normaliseStructureIds } from './structure-ids.js';
@@ -69,7 +69,7 @@ export class PdfJoiner {
 
   /** Append one part's pages, structure, bookmarks and destinations; its other objects are written out. */
   async add(part: PrintedPart): Promise<void> {
-    const src = await PDFDocument.load(normaliseStructureIds(part.pdf), { updateMetadata: false });
+    const src = await PDFDocument.load(normaliseStructureIds(part.pdf), { updateMetadata: false, parseSpeed: ParseSpeeds.Fastest });
     const ctx = this.context();
     const copier = PDFObjectCopier.for(src.context, ctx);
     const offset = this.nextKey;
@@ -149,7 +149,7 @@ export class PdfJoiner {
     const after = ctx.register(ctx.flateStream(`Q\n/Artifact BMC\nq\n/${FOOTER} Do\nQ\nEMC\n`));
     let i = 0;
     for (const footer of footers) {
-      const src = await PDFDocument.load(footer, { updateMetadata: false });
+      const src = await PDFDocument.load(footer, { updateMetadata: false, parseSpeed: ParseSpeeds.Fastest });
       const copier = PDFObjectCopier.for(src.context, ctx);
       for (const page of src.getPages()) {
         const own = this.pages[i++];

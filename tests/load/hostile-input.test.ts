@@ -1,10 +1,12 @@
 // The reproducers of broken and hostile input: each was accepted (or crashed) before and is now a
 // located input error. Every one is a real job folder, the demo with one thing broken.
 import { describe, expect, it } from 'vitest';
-import { mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, readFileSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
 import { demoCopy, errorsOf, replaceIn, write } from '../helpers/job.js';
-import { readJob } from '../../src/load/job.js';
+import { jobInputFiles, readJob } from '../../src/load/job.js';
+import { build } from '../../src/build.js';
 import { validate } from '../../src/model/validate.js';
 import { assess } from '../../src/calc/assess.js';
 import { CALC_RULES } from '../../src/calc/inputs.js';
@@ -190,6 +192,54 @@ describe('reads stay inside the job folder', () => {
     const settings = archiveSettings(join(firm, 'projects'));
     expect(settings.errors.map((e) => e.message)).toEqual([expect.stringMatching(/^cannot read the firm file: packsmith\.yaml: a link to a file outside/)]);
     expect(settings.archive).not.toContain('TOP-SECRET');
+  });
+  it("refuses a firm file linking outside in the build's quick look at an unchanged job, as when the job is read", async () => {
+    const job = demoCopy();
+    const firm = join(job, '..', '..');
+    const text = 'installer:\n  firm: Linked Firm Ltd\n';
+    writeFileSync(join(firm, 'packsmith.yaml'), text);
+    const quiet = { isTTY: false, write: () => true };
+    const once = (log: (l: string) => void = () => {}) => build({ jobs: [job], out: join(firm, 'out'), printer: null, progress: quiet, log });
+    expect((await once()).built).toHaveLength(1);
+    expect(jobInputFiles(job)?.get('../../packsmith.yaml')?.toString()).toBe(text);
+    const path = secret(job);
+    writeFileSync(path, text); // the same bytes, so only the link tells it from the file the draft was built from
+    rmSync(join(firm, 'packsmith.yaml'));
+    symlinkSync(path, join(firm, 'packsmith.yaml'));
+    expect(jobInputFiles(job)).toBeNull();
+    const lines: string[] = [];
+    const r = await once((l) => lines.push(l));
+    expect(r.skipped).toEqual([]);
+    expect(r.invalid.map((i) => i.job)).toEqual([basename(job)]);
+    expect(lines.join('\n')).toMatch(/cannot read the firm file: packsmith\.yaml: a link to a file outside the firm file's folder/);
+  });
+  it('reads a job through a link to its folder, and a file linking to another inside the job', () => {
+    const job = demoCopy();
+    mkdirSync(join(job, 'docs'));
+    writeFileSync(join(job, 'docs', 'notes.md'), 'Linked notes.\n');
+    rmSync(join(job, 'notes.md'));
+    symlinkSync(join(job, 'docs', 'notes.md'), join(job, 'notes.md'));
+    const linked = join(job, '..', 'linked-job');
+    symlinkSync(job, linked);
+    expect(errorsOf(linked)).toEqual([]);
+    expect(readJob(linked).notes?.text).toBe('Linked notes.\n');
+    rmSync(join(job, 'docs', 'notes.md'));
+    only(linked, 'notes.md:1:1: a link to nothing (a broken symlink)');
+  });
+  it('refuses readings/ linking to a folder outside the job, and a pipe among the readings; reads readings/ linking inside', () => {
+    const job = demoCopy();
+    const elsewhere = join(job, '..', '..', 'elsewhere-readings');
+    renameSync(join(job, 'readings'), elsewhere);
+    symlinkSync(elsewhere, join(job, 'readings'));
+    const errors = only(job, 'readings:1:1: readings: a link to a folder outside the job folder');
+    expect(errors.filter((e) => e.startsWith('readings/'))).toEqual([]);
+    rmSync(join(job, 'readings'));
+    renameSync(elsewhere, join(job, 'data'));
+    symlinkSync(join(job, 'data'), join(job, 'readings'));
+    expect(errorsOf(job)).toEqual([]);
+    expect(readJob(job).sessions.length).toBeGreaterThan(0);
+    expect(spawnSync('mkfifo', [join(job, 'data', '2026-11-21.csv')]).status).toBe(0);
+    only(job, 'readings/2026-11-21.csv:1:1: not a regular file (a device, pipe or socket)');
   });
   it('refuses a theme outside the firm folder that holds the jobs', () => {
     for (const theme of ['../../../../../../../../etc', '/usr/share']) {
