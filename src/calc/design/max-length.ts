@@ -109,10 +109,15 @@ export function boardShare(ctx: CircuitContext, r: CheckResult): string {
  */
 export function whyNone(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
   const own = trials.at(ownLengthM);
-  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), run: longestRun(trials, ownLengthM, [c]) }));
-  const never = alone.filter((a) => a.run.length_m === null);
+  // whether a check alone passes somewhere needs only the bracket; its length, the bisection too,
+  // and that length is printed only where every check passes somewhere
+  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), found: bracketOf(trials, ownLengthM, [c], PASSES) }));
+  const never = alone.filter((a) => a.found === null);
   if (never.length === 0) {
-    const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : metres(a.run.length_m!)}`);
+    const each = alone.map((a) => {
+      const run = runWithin(trials, a.found, [a.check], PASSES);
+      return `${nameOf(a.result.id)} alone up to ${run.beyond ? 'beyond 5 km' : metres(run.length_m!)}`;
+    });
     return `no one length meets them all (${each.join('; ')})`;
   }
   const culprits = never.map((a) => `${nameOf(a.result.id)} passes at no length from ${fmt(FROM_M)} m to ${fmt(TO_M / 1000)} km (${a.result.status} at ${fmt(ownLengthM)} m${boardShare(own, a.result)})`);
