@@ -34,8 +34,8 @@ export interface LongestRun {
  * A circuit tried at other lengths. The longest run, the reason there is none and each remedy's
  * run try many of the same lengths (the same steps from the same own length), and look at each
  * check's status alone: so each length is worked once, each check judged once there, and both
- * in numbers only, without the words no one reads (see ../basis.ts). What the length does not
- * change is worked once for all lengths (../trial-context.ts).
+ * in numbers only, without the words no one reads (see ../basis.ts). The circuit's length-free
+ * parts are worked once for all lengths (../trial-context.ts).
  */
 export class Trials {
   private readonly seen = new Map<number, { ctx: CircuitContext; results: Map<Check, CheckResult> }>();
@@ -63,7 +63,7 @@ export class Trials {
     const t = this.tried(lengthM);
     let r = t.results.get(check);
     if (!r) {
-      r = numbersOnly(() => check(t.ctx));
+      r = numbersOnly(() => this.circuit.check(check)(t.ctx));
       t.results.set(check, r);
     }
     return r;
