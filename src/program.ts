@@ -37,7 +37,8 @@ function program(argv: string[], done: (code: Exit) => void): Command {
     .argument('<job-folder>', 'the job folder (project.yaml, circuits.csv, readings/, notes.md)')
     .option('--json', 'print the assessment as JSON')
     .option('--explain', 'the working of every check, not only the open ones')
-    .action(run(async () => (await import('./commands/check.js')).checkCommand));
+    // zod's compiled parsers off before check's modules build their schemas (commands/jitless.ts)
+    .action(run(async () => (await import('./commands/jitless.js'), await import('./commands/check.js')).checkCommand));
 
   p.command('build').description('render draft packs (HTML and PDF) into DIR/<job>/draft/ and the site DIR/index.html; unchanged jobs are skipped')
     .argument('[job-folder...]', 'job folders (default: every folder under projects/)')

@@ -6,8 +6,9 @@ import { significant } from '../model/units.js';
 import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { minimumFaultEnergy } from './checks/adiabatic.js';
-import { design as designOf, lengthDesign, type Design } from './design/index.js';
-import { designFault, type DesignFault } from './design/fault.js';
+import { design as designOf, type Design } from './design/index.js';
+import { designFault, faultInputs, type DesignFault } from './design/fault.js';
+import { TrialContext } from './trial-context.js';
 import { kFor } from './design/k-factor.js';
 import { breakingLevel } from './fault-level.js';
 import { stages, traced } from './history.js';
@@ -36,28 +37,12 @@ function designed(circuit: Circuit, board: Board, supply: Supply, rules: Rules, 
 
 /** The design earth fault at the far end of the circuit as designed. */
 function faultOf(circuit: Circuit, design: Design, supply: Supply, rules: Rules, requiredS: number): DesignFault {
-  const device = { code: circuit.device, rating_a: circuit.rating_a };
-  const maker = makerIa(device, requiredS, circuit.device_ia_a);
-  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
-  return designFault(design, device, { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null });
+  const { device, options } = faultInputs(circuit, supply, rules, requiredS);
+  return designFault(design, device, options);
 }
 
-/**
- * The circuit's context with another length: only what the length changes is worked again (the
- * required time and max Zs do not depend on it). For the longest run and what would pass. The
- * design fault is worked out only when a check reads it: of the checks a length is tried for,
- * only the adiabatic check does, and a trial often ends before it.
- */
-export function atLength(ctx: CircuitContext, lengthM: number): CircuitContext {
-  const circuit = { ...ctx.circuit, length_m: lengthM };
-  const design = lengthDesign(circuit, ctx.rules, ctx.design);
-  const trial = { ...ctx, circuit, design, vdOrigin: originDrop(design.vd, ctx.site?.source) };
-  let fault: DesignFault | undefined;
-  return Object.defineProperty(trial, 'fault', {
-    get: () => (fault ??= faultOf(circuit, design, ctx.supply, ctx.rules, ctx.derived.required_disconnect_s)),
-    enumerable: true,
-  });
-}
+/** The circuit's context with another length (see trial-context.ts). */
+export const atLength = (ctx: CircuitContext, lengthM: number): CircuitContext => new TrialContext(ctx).at(lengthM);
 
 /** Everything the checks need to know about one circuit: its design table and its readings. */
 export function circuitContext(
@@ -142,7 +127,7 @@ export function assess(project: Project): Assessment {
     const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
     // the longest run and what would pass are found under the rule set's own values
     const changed = (change: Partial<Circuit>) => circuitContext({ ...strictCircuit, ...change }, board, file.supply, strict, readings, site);
-    const trials = new Trials((l) => atLength(strictCtx, l));
+    const trials = new Trials(new TrialContext(strictCtx));
     const run = longestRun(trials, circuit.length_m);
     ctx.derived.max_length_m = run.length_m;
     const runBasis = runWords(run, trials, circuit.length_m)

@@ -37,6 +37,30 @@ const outcome = (what: string) => choice(OUTCOMES, what);
  * names (an instrument export's "Zs (Ω)"): numbers written without a unit are in it.
  */
 export function readingRowSchema(units: Partial<Record<MeasuredField, string>> = {}) {
+  // keyed by each measured field's unit in a fixed order: the same units give the same key
+  // whatever order the headers named them in, and no unit's text can pass for another's
+  const key = JSON.stringify(MEASURED_FIELDS.map((f) => units[f] ?? null));
+  let schema = rowSchemas.get(key);
+  if (!schema) {
+    if (rowSchemas.size >= ROW_SCHEMAS_KEPT) rowSchemas.clear();
+    schema = rowSchema(units);
+    rowSchemas.set(key, schema);
+  }
+  return schema;
+}
+
+const MEASURED_FIELDS = Object.keys(MEASURED) as MeasuredField[];
+
+/**
+ * The schemas made, by the units their headers name. A job's sessions mostly name the same units
+ * (or none), and a schema is worth keeping: building one, and zod's first parse with it, cost far
+ * more than a row. Units come from a header only where they fit the field, so few sets exist; the
+ * bound is for a long-running `serve` all the same.
+ */
+const rowSchemas = new Map<string, ReturnType<typeof rowSchema>>();
+const ROW_SCHEMAS_KEPT = 32;
+
+function rowSchema(units: Partial<Record<MeasuredField, string>>) {
   return z.object({
     board: word('the board id'),
     ref: word('the circuit reference'),

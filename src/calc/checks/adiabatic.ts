@@ -8,9 +8,9 @@
 // a fail on an energy the device cannot let through. The equation holds for disconnection within 5 s.
 import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
-import { ADIABATIC_LIMIT_S, kFor } from '../design/k-factor.js';
+import { ADIABATIC_LIMIT_S, kFor, type KFactor } from '../design/k-factor.js';
 import { letThrough, type Energy, type LetThroughInputs } from '../design/let-through.js';
-import { earthFaultMax } from '../fault-level.js';
+import { earthFaultMax, type Level } from '../fault-level.js';
 import { rcdBreakTime } from '../devices/rcd.js';
 import { notVerified, result, worst } from './result.js';
 import { said, withBasis, type Words } from '../basis.js';
@@ -71,23 +71,55 @@ export function minimumFaultEnergy(ctx: CircuitContext): Energy | null {
   return lt.better ?? lt.bound;
 }
 
-export const adiabatic: Check = (ctx): CheckResult => {
-  const { circuit, fault, board, supply, rules } = ctx;
+/**
+ * What the check needs that the circuit's length does not change: k, k²S², the largest earth fault
+ * current at the board and the let-through at it (worked when first needed, then kept).
+ */
+interface LengthFree {
+  k: KFactor;
+  k2s2: number;
+  max: Level | null;
+  atMax: (ctx: CircuitContext) => Part;
+}
+
+function lengthFree(ctx: CircuitContext): LengthFree {
+  const { circuit, board, supply, rules } = ctx;
+  const k = kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable);
+  const k2s2 = (k.k * circuit.cpc_mm2) ** 2;
+  const max = earthFaultMax(board, supply, rules.u0_v);
+  let part: Part | undefined;
+  // the maker's Ia that judgeAt reads is the device's, not the length's (design/fault.ts)
+  const atMax = (at: CircuitContext) => (part ??= judgeAt(at, () => `maximum earth fault current at ${board.id} (${max!.basis})`, max!.amps, k2s2));
+  return { k, k2s2, max, atMax };
+}
+
+function judged(ctx: CircuitContext, free: () => LengthFree): CheckResult {
+  const { circuit, fault } = ctx;
   if (!fault.known) return notVerified(id, `no design fault current: ${fault.why}`);
   if (!fault.device_known) return notVerified(id, () => `${fault.basis}; the device library has no characteristic for ${fault.opener}, and no device_ia_a from the maker`);
   const time = fault.time_s;
   if (time === null || time > ADIABATIC_LIMIT_S) {
     return result(id, 'fail', () => `${fault.basis}: ${fault.opener} ${time === null ? 'is not known to operate' : `takes ${fmt(time)} s`}; the adiabatic equation needs disconnection within ${ADIABATIC_LIMIT_S} s (IEC 60364-5-54, 543.1.2)`, { value: circuit.cpc_mm2, unit: 'mm2' });
   }
-  const k = kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable);
-  const k2s2 = (k.k * circuit.cpc_mm2) ** 2;
+  const { k, k2s2, max, atMax } = free();
   const parts = [judgeAt(ctx, () => `${fault.basis}; minimum fault current`, fault.current_a, k2s2)];
-  const max = earthFaultMax(board, supply, rules.u0_v);
   if (!max) parts.push({ status: 'not-verified', words: 'maximum fault current not known: no prospective fault current, Zdb or Ze recorded', energy: null });
-  else if (max.amps > fault.current_a) parts.push(judgeAt(ctx, () => `maximum earth fault current at ${board.id} (${max.basis})`, max.amps, k2s2));
+  else if (max.amps > fault.current_a) parts.push(atMax(ctx));
   const status = worst(parts.map((p) => p.status));
   const needed = parts.map((p) => (p.energy ? Math.sqrt(p.energy.i2t_a2s) / k.k : 0)).reduce((a, b) => Math.max(a, b), 0);
   return result(id, status,
     () => `${parts.map((p) => said(p.words)).join('; ')}; k²S² with ${k.basis} and cpc ${fmt(circuit.cpc_mm2)} mm² (IEC 60364-5-54, 543.1.2)`,
     { value: circuit.cpc_mm2, limit: needed > 0 ? Number(needed.toFixed(3)) : null, unit: 'mm2' });
-};
+}
+
+export const adiabatic: Check = (ctx) => judged(ctx, () => lengthFree(ctx));
+
+/**
+ * The adiabatic check for one circuit at any length (`base`: the circuit at one of them): its
+ * length-free parts worked once. For trials in numbers only (../trial-context.ts): a part kept
+ * from one trial keeps that trial's words.
+ */
+export function adiabaticAtLengths(base: CircuitContext): Check {
+  let free: LengthFree | undefined;
+  return (ctx) => judged(ctx, () => (free ??= lengthFree(base)));
+}

@@ -1,9 +1,10 @@
 // The design earth fault: If = U0 × Cmin / Zs at the far end of the circuit (design Zs), and how
 // the device giving fault protection answers it: the overcurrent device's slowest edge or, on a
 // TT supply with an RCD, the RCD's break time. With the time comes the I²t the cpc must take.
-import { characteristic, energyAt, operatingTime, type Device } from '../devices/index.js';
+import { characteristic, energyAt, makerIa, operatingTime, type Device } from '../devices/index.js';
 import { rcdBreakTime } from '../devices/rcd.js';
-import type { RcdType } from '../../model/schema.js';
+import type { Circuit, RcdType, Supply } from '../../model/schema.js';
+import type { Rules } from '../rules.js';
 import { fmt } from '../../model/units.js';
 import type { Design } from './index.js';
 import { withBasis, withWords } from '../basis.js';
@@ -35,6 +36,18 @@ export interface FaultOptions {
   rcd: { ma: number; type: RcdType | undefined } | null;
   /** the maker's Ia within the required time, for a device the library does not hold */
   maker?: { ia_a: number; required_s: number; basis: string } | null;
+}
+
+/**
+ * What the design fault needs but the design: the circuit's device, U0 and Cmin, the RCD giving
+ * fault protection on a TT supply, and the maker's Ia within the required time (`requiredS`).
+ * None depends on the circuit's length.
+ */
+export function faultInputs(circuit: Circuit, supply: Supply, rules: Rules, requiredS: number): { device: Device; options: FaultOptions } {
+  const device = { code: circuit.device, rating_a: circuit.rating_a };
+  const maker = makerIa(device, requiredS, circuit.device_ia_a);
+  const rcd = supply.earthing === 'TT' && circuit.rcd_ma !== undefined ? { ma: circuit.rcd_ma, type: circuit.rcd_type } : null;
+  return { device, options: { u0: rules.u0_v, cmin: rules.cmin, rcd, maker: maker ? { ...maker, required_s: requiredS } : null } };
 }
 
 export function designFault(design: Design, device: Device, o: FaultOptions): DesignFault {

@@ -12,15 +12,34 @@ export interface R1R2 {
   basis: string;
 }
 
-export function r1r2(material: Material, liveMm2: number, cpcMm2: number, lengthM: number, ring: boolean, thetaC: number): R1R2 | null {
+/** The resistances per metre (mΩ/m) of the live conductor and the cpc at one temperature: what a length multiplies. */
+export interface PerMetre {
+  r1: number;
+  r2: number;
+  /** r1 + r2 */
+  sum: number;
+}
+
+/** r1, r2 and their sum at θ °C, or null where IEC 60228 has no such size. Worked once for a circuit tried at many lengths. */
+export function perMetre(material: Material, liveMm2: number, cpcMm2: number, thetaC: number): PerMetre | null {
   const r1 = resistance(material, liveMm2, thetaC);
   const r2 = resistance(material, cpcMm2, thetaC);
   if (r1 === null || r2 === null) return null;
-  const perMetre = r1 + r2; // mΩ/m
-  const ohm = (perMetre * lengthM) / 1000 / (ring ? 4 : 1);
+  return { r1, r2, sum: r1 + r2 };
+}
+
+/** R1+R2 of a run of this length, from the resistances per metre. */
+export function r1r2Of(pm: PerMetre, lengthM: number, ring: boolean, thetaC: number): R1R2 {
+  const { r1, r2, sum } = pm;
+  const ohm = (sum * lengthM) / 1000 / (ring ? 4 : 1);
   return withBasis({ ohm, theta_c: thetaC }, () => (ring
-    ? `R1+R2 = (r1 + r2)/4 = ${fmt(lengthM)} m × ${fmt(perMetre)} mΩ/m / 4 = ${fmt(ohm)} Ω at ${thetaC} °C (ring)`
+    ? `R1+R2 = (r1 + r2)/4 = ${fmt(lengthM)} m × ${fmt(sum)} mΩ/m / 4 = ${fmt(ohm)} Ω at ${thetaC} °C (ring)`
     : `R1+R2 = ${fmt(lengthM)} m × (${fmt(r1)} + ${fmt(r2)}) mΩ/m = ${fmt(ohm)} Ω at ${thetaC} °C`));
+}
+
+export function r1r2(material: Material, liveMm2: number, cpcMm2: number, lengthM: number, ring: boolean, thetaC: number): R1R2 | null {
+  const pm = perMetre(material, liveMm2, cpcMm2, thetaC);
+  return pm && r1r2Of(pm, lengthM, ring, thetaC);
 }
 
 export interface SourceImpedance {

@@ -12,6 +12,7 @@ import { adiabatic } from '../checks/adiabatic.js';
 import { voltageDropCheck } from '../checks/voltage-drop.js';
 import { zsDesign } from '../checks/zs-design.js';
 import { numbersOnly } from '../basis.js';
+import type { TrialContext } from '../trial-context.js';
 
 export const LENGTH_CHECKS: readonly Check[] = [zsDesign, voltageDropCheck, adiabatic];
 
@@ -19,9 +20,6 @@ const FROM_M = 0.5;
 const TO_M = 5000;
 const STEP = 1.5;
 const BISECTIONS = 18;
-
-/** The circuit as it would be with another length. */
-export type AtLength = (lengthM: number) => CircuitContext;
 
 export interface LongestRun {
   /** metres, rounded down to 0.1 m; null where no length passes */
@@ -36,17 +34,20 @@ export interface LongestRun {
  * A circuit tried at other lengths. The longest run, the reason there is none and each remedy's
  * run try many of the same lengths (the same steps from the same own length), and look at each
  * check's status alone: so each length is worked once, each check judged once there, and both
- * in numbers only, without the words no one reads (see ../basis.ts).
+ * in numbers only, without the words no one reads (see ../basis.ts). The circuit's length-free
+ * parts are worked once for all lengths (../trial-context.ts).
  */
 export class Trials {
   private readonly seen = new Map<number, { ctx: CircuitContext; results: Map<Check, CheckResult> }>();
+  /** the check that failed at the last length tried: asked first at the next, where it usually fails again */
+  private lastFailed: Check | null = null;
 
-  constructor(private readonly atLength: AtLength) {}
+  constructor(private readonly circuit: TrialContext) {}
 
   private tried(lengthM: number) {
     let t = this.seen.get(lengthM);
     if (!t) {
-      t = { ctx: numbersOnly(() => this.atLength(lengthM)), results: new Map() };
+      t = { ctx: numbersOnly(() => this.circuit.at(lengthM)), results: new Map() };
       this.seen.set(lengthM, t);
     }
     return t;
@@ -62,10 +63,26 @@ export class Trials {
     const t = this.tried(lengthM);
     let r = t.results.get(check);
     if (!r) {
-      r = numbersOnly(() => check(t.ctx));
+      r = numbersOnly(() => this.circuit.check(check)(t.ctx));
       t.results.set(check, r);
     }
     return r;
+  }
+
+  /**
+   * Whether this length meets every check. The checks are pure, so the order they are asked in
+   * changes nothing but how many are judged: the one that failed last is asked first.
+   */
+  meetsAll(checks: readonly Check[], lengthM: number, meets: Meets): boolean {
+    const first = this.lastFailed !== null && checks.includes(this.lastFailed) ? this.lastFailed : null;
+    if (first && !meets(this.judge(first, lengthM).status)) return false;
+    for (const c of checks) {
+      if (c !== first && !meets(this.judge(c, lengthM).status)) {
+        this.lastFailed = c;
+        return false;
+      }
+    }
+    return true;
   }
 }
 
@@ -92,10 +109,15 @@ export function boardShare(ctx: CircuitContext, r: CheckResult): string {
  */
 export function whyNone(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
   const own = trials.at(ownLengthM);
-  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), run: longestRun(trials, ownLengthM, [c]) }));
-  const never = alone.filter((a) => a.run.length_m === null);
+  // whether a check alone passes somewhere needs only the bracket; its length, the bisection too,
+  // and that length is printed only where every check passes somewhere
+  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), found: bracketOf(trials, ownLengthM, [c], PASSES) }));
+  const never = alone.filter((a) => a.found === null);
   if (never.length === 0) {
-    const each = alone.map((a) => `${nameOf(a.result.id)} alone up to ${a.run.beyond ? 'beyond 5 km' : metres(a.run.length_m!)}`);
+    const each = alone.map((a) => {
+      const run = runWithin(trials, a.found, [a.check], PASSES);
+      return `${nameOf(a.result.id)} alone up to ${run.beyond ? 'beyond 5 km' : metres(run.length_m!)}`;
+    });
     return `no one length meets them all (${each.join('; ')})`;
   }
   const culprits = never.map((a) => `${nameOf(a.result.id)} passes at no length from ${fmt(FROM_M)} m to ${fmt(TO_M / 1000)} km (${a.result.status} at ${fmt(ownLengthM)} m${boardShare(own, a.result)})`);
@@ -117,38 +139,46 @@ export function runWords(run: LongestRun, trials: Trials, ownLengthM: number, ch
 export type Meets = (status: Status) => boolean;
 export const PASSES: Meets = (s) => s === 'pass';
 
-export function longestRun(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
-  const passes = (l: number) => checks.every((c) => meets(trials.judge(c, l).status));
-  const bracket = (): [number, number] | 'beyond' | null => {
-    const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
-    if (passes(own)) {
-      for (let a = own; ; a *= STEP) {
-        const b = a * STEP;
-        if (b > TO_M) return passes(TO_M) ? 'beyond' : [a, TO_M];
-        if (!passes(b)) return [a, b];
-      }
+/** Two lengths with the boundary between them (the first meets the checks, the second not), 'beyond' where 5 km meets them, null where no length does. */
+type Bracket = [number, number] | 'beyond' | null;
+
+function bracketOf(trials: Trials, ownLengthM: number, checks: readonly Check[], meets: Meets): Bracket {
+  const passes = (l: number) => trials.meetsAll(checks, l, meets);
+  const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
+  if (passes(own)) {
+    for (let a = own; ; a *= STEP) {
+      const b = a * STEP;
+      if (b > TO_M) return passes(TO_M) ? 'beyond' : [a, TO_M];
+      if (!passes(b)) return [a, b];
     }
-    for (let b = own; b > FROM_M; b /= STEP) {
-      const a = Math.max(FROM_M, b / STEP);
-      if (passes(a)) return [a, b];
-    }
-    // the shortest runs fail: walk up from 0.5 m to the first passing length, then on to a failure
-    let last: number | null = null;
-    for (let l = FROM_M; l <= TO_M; l *= STEP) {
-      if (passes(l)) last = l;
-      else if (last !== null) return [last, l];
-    }
-    return last === null ? null : 'beyond';
-  };
-  const found = bracket();
+  }
+  for (let b = own; b > FROM_M; b /= STEP) {
+    const a = Math.max(FROM_M, b / STEP);
+    if (passes(a)) return [a, b];
+  }
+  // the shortest runs fail: walk up from 0.5 m to the first passing length, then on to a failure
+  let last: number | null = null;
+  for (let l = FROM_M; l <= TO_M; l *= STEP) {
+    if (passes(l)) last = l;
+    else if (last !== null) return [last, l];
+  }
+  return last === null ? null : 'beyond';
+}
+
+/** The longest run within a bracket, by bisection. */
+function runWithin(trials: Trials, found: Bracket, checks: readonly Check[], meets: Meets): LongestRun {
   if (found === null) return { length_m: null, beyond: false, limited_by: [] };
   if (found === 'beyond') return { length_m: TO_M, beyond: true, limited_by: [] };
   let [a, b] = found;
   // a only grows and stays below b, so once both round down to the same 0.1 m the answer is known
   for (let n = 0; n < BISECTIONS && Math.floor(a * 10) !== Math.floor(b * 10); n++) {
     const m = (a + b) / 2;
-    if (passes(m)) a = m; else b = m;
+    if (trials.meetsAll(checks, m, meets)) a = m; else b = m;
   }
   const limited = checks.map((c) => trials.judge(c, b)).filter((r) => !meets(r.status)).map((r) => r.id);
   return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
+}
+
+export function longestRun(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS, meets: Meets = PASSES): LongestRun {
+  return runWithin(trials, bracketOf(trials, ownLengthM, checks, meets), checks, meets);
 }

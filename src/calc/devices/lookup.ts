@@ -1,7 +1,7 @@
 // Device → its characteristic, built once per code and rating from the reference tables.
-import { DEVICE_STANDARD, type DeviceCode } from '../../reference/device-codes.js';
+import { DEVICE_CODES, DEVICE_STANDARD, type DeviceCode } from '../../reference/device-codes.js';
 import type { BreakerType } from '../../reference/circuit-breakers.js';
-import { ratingProblem } from '../../model/device-rating.js';
+import { ratingProblem, ratingsMade } from '../../model/device-rating.js';
 import { breakerCharacteristic } from './breakers.js';
 import { bs3036Characteristic, bs88Part2Characteristic, bs88Part3Characteristic } from './fuses.js';
 import type { Characteristic } from './characteristic.js';
@@ -12,9 +12,18 @@ export interface Device {
 }
 
 /** The B/C/D type of a circuit-breaker code, or null for a fuse. */
-export function breakerType(code: DeviceCode): BreakerType | null {
+function typeOf(code: string): BreakerType | null {
   const m = /^(?:mcb|rcbo):([BCD])$/.exec(code);
   return m ? (m[1] as BreakerType) : null;
+}
+
+/** Each known code's type, read once (a code is asked about at every trial length). */
+const TYPES: ReadonlyMap<string, BreakerType | null> = new Map(DEVICE_CODES.map((c) => [c, typeOf(c)]));
+
+/** The B/C/D type of a circuit-breaker code, or null for a fuse. */
+export function breakerType(code: DeviceCode): BreakerType | null {
+  const t = TYPES.get(code);
+  return t !== undefined ? t : typeOf(code);
 }
 
 function build({ code, rating_a }: Device): Characteristic | null {
@@ -29,14 +38,23 @@ function build({ code, rating_a }: Device): Characteristic | null {
   }
 }
 
-const built = new Map<string, Characteristic | null>();
+/**
+ * The characteristics built, by code and then rating: only for the codes listed and the ratings
+ * each family is made in, so the memo holds at most one entry per catalogue rating whatever is
+ * asked (any other rating has no characteristic, and is answered without being kept).
+ */
+const built: ReadonlyMap<DeviceCode, Map<number, Characteristic | null>> = new Map(DEVICE_CODES.map((c) => [c, new Map()]));
 
 /**
  * The device's characteristic, or null where the family does not make the rating or the library
  * holds no published points for it (then every query answers null: never a guess).
  */
 export function characteristic(device: Device): Characteristic | null {
-  const key = `${device.code} ${device.rating_a}`;
-  if (!built.has(key)) built.set(key, build(device));
-  return built.get(key)!;
+  const byRating = built.get(device.code);
+  let c = byRating?.get(device.rating_a);
+  if (c === undefined) {
+    c = build(device);
+    if (byRating && ratingsMade(device.code).includes(device.rating_a)) byRating.set(device.rating_a, c);
+  }
+  return c;
 }
