@@ -1,7 +1,8 @@
 // The bench's HTML stage: every job loaded, validated, assessed, rendered through the built-in
 // templates and written, on one core. Also runnable alone, for a profile:
 //
-//   node --cpu-prof dist/bench/html.js [--jobs 200]
+//   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N]
+//   node --expose-gc dist/bench/html.js --jobs 240 --heap   (heap retained after 30, 60, 120, 240 jobs)
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -49,12 +50,30 @@ export function htmlStage(jobs: string[], htmlDir: string): HtmlStage {
   return { seconds: (performance.now() - t0) / 1000, cpuSeconds: (cpu.user + cpu.system) / 1e6, renderSeconds, renderCpuSeconds: renderCpu / 1e6, packs };
 }
 
+/**
+ * Memory flat in the number of jobs: the heap still held after a full collection, once the HTML
+ * stage has run over 30, 60, 120, ... jobs (`node --expose-gc dist/bench/html.js --jobs 240 --heap`).
+ * What a stage keeps (bounded caches, the engine) shows as a constant; a leak, as growth.
+ */
+function retainedHeap(jobs: string[], htmlDir: string): void {
+  const gc = (globalThis as { gc?: () => void }).gc;
+  if (!gc) throw new Error('--heap needs node --expose-gc');
+  for (let n = Math.min(30, jobs.length); ; n = Math.min(n * 2, jobs.length)) {
+    htmlStage(jobs.slice(0, n), htmlDir);
+    gc();
+    gc();
+    process.stdout.write(`after ${n} jobs: ${(process.memoryUsage().heapUsed / 1048576).toFixed(1)} MB of heap retained\n`);
+    if (n === jobs.length) return;
+  }
+}
+
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' } } });
+  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' }, heap: { type: 'boolean' } } });
   const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-html-'));
   try {
     const archive = generateArchive(join(root, 'projects'), Number(values.jobs));
-    for (let i = 0; i < Number(values.rounds); i++) {
+    if (values.heap) retainedHeap(archive.jobs, join(root, 'html'));
+    else for (let i = 0; i < Number(values.rounds); i++) {
       const { seconds, cpuSeconds, renderSeconds, renderCpuSeconds } = htmlStage(archive.jobs, join(root, 'html'));
       process.stdout.write(`HTML stage: ${archive.jobs.length} jobs, ${archive.circuits} circuits in ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / seconds)} circuits/s wall, ${Math.round(archive.circuits / cpuSeconds)} circuits/s CPU; `
         + `render alone ${renderSeconds.toFixed(2)} s wall, ${renderCpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / renderSeconds)} circuits/s wall, ${Math.round(archive.circuits / renderCpuSeconds)} circuits/s CPU\n`);
