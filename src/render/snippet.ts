@@ -96,6 +96,12 @@ export interface SnippetForm {
 /** A device's key for the caches below: a device is its code and rating. */
 const deviceKey = (device: Device): string => `${device.code} ${device.rating_a}`;
 
+/** The shaded area between a device's fastest and slowest edges: the fastest edge, held on to the right of the plot, then the slowest edge back. */
+function bandArea(fast: [number, number][], slow: [number, number][]): string {
+  const [fl, tl] = fast[fast.length - 1]!;
+  return toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()]);
+}
+
 /** The band's shapes and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
 const bands = boundedCache<{ plot: readonly string[]; desc: string }>(128);
 const band = (device: Device) => bands(deviceKey(device), () => {
@@ -106,9 +112,7 @@ const band = (device: Device) => bands(deviceKey(device), () => {
   let desc: string;
   if (ch.fastest) {
     const fast = edgePath(ch.fastest);
-    const [fl, tl] = fast[fast.length - 1]!;
-    const area = [...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()];
-    plot.push(`<polygon class="band" points="${toXY(area)}"/>`);
+    plot.push(`<polygon class="band" points="${bandArea(fast, slow)}"/>`);
     plot.push(`<polyline class="fastest" points="${toXY(fast)}"/>`);
     desc = `The shaded band lies between the fastest and the slowest operating times of ${ch.source}.`;
   } else {
@@ -124,13 +128,7 @@ const downstreamBand = (device: Device) => downstreamBands(deviceKey(device), ()
   const down = characteristic(device);
   if (!down) return null;
   const slow = edgePath(down.slowest);
-  let area: string | null = null;
-  if (down.fastest) {
-    const fast = edgePath(down.fastest);
-    const [fl, tl] = fast[fast.length - 1]!;
-    area = toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()]);
-  }
-  return { area, slowest: toXY(slow), source: down.source };
+  return { area: down.fastest ? bandArea(edgePath(down.fastest), slow) : null, slowest: toXY(slow), source: down.source };
 });
 
 /** The fault point's line, marker, label and sentence, by device and fault current. */
