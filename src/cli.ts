@@ -1,5 +1,8 @@
 #!/usr/bin/env node
 // The command line: src/program.ts declares the commands and options and runs them.
+import { tuneFor } from './commands/tuning.js';
 import { runCli } from './program.js';
 
-void runCli(process.argv.slice(2)).then((code) => { process.exitCode = code; });
+const argv = process.argv.slice(2);
+tuneFor(argv);
+void runCli(argv).then((code) => { process.exitCode = code; });

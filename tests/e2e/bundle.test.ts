@@ -1,7 +1,10 @@
 // The bundled command line (dist/cli.js and dist/bundle/, written by scripts/bundle.mjs in
 // `npm run build`) says exactly what the compiled modules it was made from say: the same bytes on
 // stdout and stderr and the same exit code, run by run. The unbundled side is dist/program.js, the
-// module tsc wrote and the bundle starts from, run in a process of its own the same way.
+// module tsc wrote and the bundle starts from, run in a process of its own the same way. The
+// bundled side also runs a small job's check without V8's optimising compiler (src/cli.ts,
+// src/commands/tuning.ts) and the unbundled side with it, so these comparisons show that too
+// changes nothing it prints.
 import { describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
