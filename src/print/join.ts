@@ -6,17 +6,18 @@
 // footer ("page N of M") drawn from a print of the footer alone over the whole pack; and the
 // pack's metadata and data.json (metadata.ts).
 //
-// The joined file is written as the parts arrive: each part's objects are renumbered and written
-// out, and only what the end needs stays in memory (page dictionaries, the parent tree's and
-// outline's entries, ids, destinations). Holding the whole joined document instead took node
-// 0.3 GB for a 500-circuit pack, growing with every part.
-import { closeSync, openSync, writeSync } from 'node:fs';
-import {
-  PDFArray, PDFContext, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFRawStream, PDFRef, PDFString, ParseSpeeds,
-  decodePDFRawStream, type PDFObject,
-} from 'pdf-lib';
+// The joined file is written as the parts arrive (object-writer.ts): each part's objects are
+// renumbered and written out, and only what the end needs stays in memory (page dictionaries, the
+// parent tree's and outline's entries, ids, destinations). Holding the whole joined document
+// instead took node 0.3 GB for a 500-circuit pack, growing with every part. The outline is built
+// in outline.ts, the running footer drawn in running-footer.ts.
+import { PDFArray, PDFDict, PDFDocument, PDFName, PDFNumber, PDFObjectCopier, PDFRef, PDFString, ParseSpeeds, type PDFObject } from 'pdf-lib';
 import { normaliseStructureIds } from './structure-ids.js';
 import { applyMetadata, type PdfMetadata } from './metadata.js';
+import { ObjectWriter } from './object-writer.js';
+import { outlineOf, type Bookmark } from './outline.js';
+import { drawFooters, ownResources, type HeldPage } from './running-footer.js';
+import { nameTree, numberTree, refsOf, shiftKey } from './pdf-trees.js';
 
 const N = (n: string) => PDFName.of(n);
 
@@ -29,21 +30,11 @@ export interface PrintedPart {
 /** A page's size in points. */
 export type PageSize = { width: number; height: number };
 
-interface Bookmark { title: PDFObject; dest: PDFObject | undefined; level: number }
-interface HeldPage { ref: PDFRef; dict: PDFDict; size: PageSize }
-
-/** The name the running footer's drawing has in each page's resources. */
-const FOOTER = 'PsRunningFooter';
-
 export class PdfJoiner {
-  private readonly fd: number;
-  private written = 0;
-  /** byte offset of each object, by object number */
-  private readonly offsets: number[] = [];
-  private nextObject = 1;
-  private readonly pagesRef = this.reserve();
-  private readonly documentRef = this.reserve();
-  private readonly pages: HeldPage[] = [];
+  private readonly out: ObjectWriter;
+  private readonly pagesRef: PDFRef;
+  private readonly documentRef: PDFRef;
+  private readonly pages: (HeldPage & { size: PageSize })[] = [];
   private readonly kids: PDFRef[] = [];
   private readonly parentTree: PDFObject[] = [];
   private readonly ids: PDFObject[] = [];
@@ -54,9 +45,9 @@ export class PdfJoiner {
 
   /** Start the joined PDF at `path`. */
   constructor(path: string) {
-    this.fd = openSync(path, 'w');
-    // the binary comment tells a reader the file holds binary data (ISO 32000-1 §7.5.2)
-    this.write(Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n\n', 'latin1'));
+    this.out = new ObjectWriter(path);
+    this.pagesRef = this.out.reserve();
+    this.documentRef = this.out.reserve();
   }
 
   get pageCount(): number {
@@ -70,7 +61,7 @@ export class PdfJoiner {
   /** Append one part's pages, structure, bookmarks and destinations; its other objects are written out. */
   async add(part: PrintedPart): Promise<void> {
     const src = await PDFDocument.load(normaliseStructureIds(part.pdf), { updateMetadata: false, parseSpeed: ParseSpeeds.Fastest });
-    const ctx = this.context();
+    const ctx = this.out.context();
     const copier = PDFObjectCopier.for(src.context, ctx);
     const offset = this.nextKey;
     const root = src.catalog.lookupMaybe(N('StructTreeRoot'), PDFDict);
@@ -80,7 +71,7 @@ export class PdfJoiner {
     for (const k of partKids) src.context.lookup(k, PDFDict).delete(N('P'));
     this.lang ??= docElem?.get(N('Lang'));
 
-    const held: HeldPage[] = [];
+    const held: (HeldPage & { size: PageSize })[] = [];
     for (const page of src.getPages()) {
       const ref = copier.copy(page.ref);
       const dict = ctx.lookup(ref, PDFDict);
@@ -117,7 +108,7 @@ export class PdfJoiner {
     }
     // Every object but the pages now goes to the file; a page waits for the running footer.
     const pageRefs = new Set(held.map((p) => p.ref));
-    this.flush(ctx, (ref) => !pageRefs.has(ref));
+    this.out.flush(ctx, (ref) => !pageRefs.has(ref));
     this.pages.push(...held);
   }
 
@@ -143,28 +134,8 @@ export class PdfJoiner {
    * over page i, then the page tree, structure tree, outline, destinations and metadata.
    */
   async finish(footers: Uint8Array[], meta: PdfMetadata | undefined): Promise<void> {
-    const ctx = this.context();
-    // an artifact: the footer is not part of the pack's reading order (as in Chromium's own print)
-    const before = ctx.register(ctx.flateStream('q\n'));
-    const after = ctx.register(ctx.flateStream(`Q\n/Artifact BMC\nq\n/${FOOTER} Do\nQ\nEMC\n`));
-    let i = 0;
-    for (const footer of footers) {
-      const src = await PDFDocument.load(footer, { updateMetadata: false, parseSpeed: ParseSpeeds.Fastest });
-      const copier = PDFObjectCopier.for(src.context, ctx);
-      for (const page of src.getPages()) {
-        const own = this.pages[i++];
-        if (!own) break;
-        const form = formOf(ctx, copier, page.node);
-        const res = own.dict.get(N('Resources')) as PDFDict;
-        const xobjects = (res.get(N('XObject')) as PDFDict | undefined) ?? ctx.obj({});
-        xobjects.set(N(FOOTER), form);
-        res.set(N('XObject'), xobjects);
-        const contents = own.dict.get(N('Contents'));
-        own.dict.set(N('Contents'), ctx.obj([before, ...(contents instanceof PDFArray ? contents.asArray() : contents ? [contents] : []), after]));
-        ctx.assign(own.ref, own.dict);
-      }
-    }
-    if (i !== this.pages.length) throw new Error(`the running footer printed ${i} pages for a pack of ${this.pages.length}`);
+    const ctx = this.out.context();
+    await drawFooters(ctx, this.pages, footers);
     ctx.assign(this.pagesRef, ctx.obj({ Type: 'Pages', Kids: this.pages.map((p) => p.ref), Count: this.pages.length }));
 
     const rootRef = ctx.nextRef();
@@ -191,155 +162,16 @@ export class PdfJoiner {
     catalog.set(N('Dests'), ctx.register(dests));
     catalog.set(N('MarkInfo'), ctx.obj({ Type: 'MarkInfo', Marked: true }));
     catalog.set(N('StructTreeRoot'), rootRef);
-    if (this.bookmarks.length) catalog.set(N('Outlines'), this.outline(ctx));
+    if (this.bookmarks.length) catalog.set(N('Outlines'), outlineOf(ctx, this.bookmarks));
     catalog.set(N('ViewerPreferences'), ctx.obj({ Type: 'ViewerPreferences', DisplayDocTitle: true }));
     if (this.lang) catalog.set(N('Lang'), this.lang);
     const catalogRef = ctx.register(catalog);
-    this.flush(ctx, () => true);
-    this.trailer(catalogRef, info);
-  }
-
-  /** The outline: each bookmark under the nearest one before it of a lower level, all open. */
-  private outline(ctx: PDFContext): PDFRef {
-    type Node = { dict: PDFDict; ref: PDFRef; level: number; children: Node[] };
-    const top: Node = { dict: ctx.obj({ Type: 'Outlines' }), ref: ctx.nextRef(), level: 0, children: [] };
-    const stack: Node[] = [top];
-    for (const b of this.bookmarks) {
-      while (stack[stack.length - 1]!.level >= b.level) stack.pop();
-      const dict = ctx.obj({ Title: b.title });
-      if (b.dest) dict.set(N('Dest'), b.dest);
-      const node: Node = { dict, ref: ctx.register(dict), level: b.level, children: [] };
-      stack[stack.length - 1]!.children.push(node);
-      stack.push(node);
-    }
-    const link = (n: Node): number => {
-      let count = 0;
-      n.children.forEach((c, i) => {
-        c.dict.set(N('Parent'), n.ref);
-        if (i > 0) c.dict.set(N('Prev'), n.children[i - 1]!.ref);
-        if (i < n.children.length - 1) c.dict.set(N('Next'), n.children[i + 1]!.ref);
-        count += 1 + link(c);
-      });
-      if (n.children.length) {
-        n.dict.set(N('First'), n.children[0]!.ref);
-        n.dict.set(N('Last'), n.children[n.children.length - 1]!.ref);
-        n.dict.set(N('Count'), PDFNumber.of(count));
-      }
-      return count;
-    };
-    link(top);
-    ctx.assign(top.ref, top.dict);
-    return top.ref;
-  }
-
-  /** A context whose new objects are numbered after every object so far. */
-  private context(): PDFContext {
-    const ctx = PDFContext.create();
-    ctx.largestObjectNumber = this.nextObject - 1;
-    return ctx;
-  }
-
-  private reserve(): PDFRef {
-    return PDFRef.of(this.nextObject++);
-  }
-
-  /** Write the context's objects that `now` accepts (and forget them). */
-  private flush(ctx: PDFContext, now: (ref: PDFRef) => boolean): void {
-    for (const [ref, obj] of ctx.enumerateIndirectObjects()) {
-      if (!now(ref)) continue;
-      const bytes = new Uint8Array(obj.sizeInBytes());
-      obj.copyBytesInto(bytes, 0);
-      this.offsets[ref.objectNumber] = this.written;
-      this.write(Buffer.from(`${ref.objectNumber} 0 obj\n`, 'latin1'));
-      this.write(bytes);
-      this.write(Buffer.from('\nendobj\n\n', 'latin1'));
-      ctx.delete(ref);
-    }
-    this.nextObject = Math.max(this.nextObject, ctx.largestObjectNumber + 1);
-  }
-
-  /** The cross-reference table and trailer (ISO 32000-1 §7.5.4, §7.5.5); closes the file. */
-  private trailer(root: PDFRef, info: PDFRef | undefined): void {
-    const size = this.nextObject;
-    const rows = ['xref', `0 ${size}`, '0000000000 65535 f '];
-    for (let n = 1; n < size; n++) {
-      const at = this.offsets[n];
-      rows.push(at === undefined ? '0000000000 00000 f ' : `${String(at).padStart(10, '0')} 00000 n `);
-    }
-    const start = this.written;
-    this.write(Buffer.from(`${rows.join('\n')}\ntrailer\n<<\n/Size ${size}\n/Root ${root.toString()}${info ? `\n/Info ${info.toString()}` : ''}\n>>\n\nstartxref\n${start}\n%%EOF`, 'latin1'));
-    closeSync(this.fd);
-  }
-
-  private write(bytes: Uint8Array): void {
-    writeSync(this.fd, bytes);
-    this.written += bytes.length;
+    this.out.flush(ctx, () => true);
+    this.out.trailer(catalogRef, info);
   }
 
   /** Close the file without finishing it (a part failed). */
   abandon(): void {
-    try {
-      closeSync(this.fd);
-    } catch {
-      /* already closed */
-    }
+    this.out.abandon();
   }
-}
-
-/** A page of the footer's print as a form XObject in `ctx`: its content, its resources, its box. */
-function formOf(ctx: PDFContext, copier: PDFObjectCopier, page: PDFDict): PDFRef {
-  const contents = page.lookup(N('Contents'));
-  const streams = contents instanceof PDFArray ? contents.asArray().map((c) => page.context.lookup(c)) : [contents];
-  const decoded = streams.map((s) => (s instanceof PDFRawStream ? decodePDFRawStream(s).decode() : new Uint8Array()));
-  const joined = Buffer.concat(decoded.flatMap((d) => [Buffer.from(d), Buffer.from('\n')]));
-  const box = page.lookup(N('MediaBox'), PDFArray);
-  return ctx.register(ctx.flateStream(joined, {
-    Type: 'XObject', Subtype: 'Form', BBox: copier.copy(box), Resources: copier.copy(page.get(N('Resources'))!),
-  }));
-}
-
-/**
- * A page's resources, and their XObjects, as dictionaries of the page's own (the running footer
- * is added to them once every other object has been written).
- */
-function ownResources(ctx: PDFContext, res: PDFObject | undefined): PDFDict {
-  const own = (res instanceof PDFRef ? ctx.lookupMaybe(res, PDFDict) : res instanceof PDFDict ? res : undefined)?.clone() ?? ctx.obj({});
-  const xobjects = own.get(N('XObject'));
-  if (xobjects instanceof PDFRef) own.set(N('XObject'), ctx.lookup(xobjects, PDFDict).clone());
-  return own;
-}
-
-function refsOf(k: PDFObject | undefined): PDFRef[] {
-  if (k instanceof PDFRef) return [k];
-  if (k instanceof PDFArray) return k.asArray().filter((x): x is PDFRef => x instanceof PDFRef);
-  return [];
-}
-
-function shiftKey(d: PDFDict, key: string, by: number): void {
-  const n = d.get(N(key));
-  if (n instanceof PDFNumber) d.set(N(key), PDFNumber.of(n.asNumber() + by));
-}
-
-/** The entries of a number tree (its /Nums, and its /Kids' in order). */
-function numberTree(ctx: PDFContext, node: PDFObject | undefined): [number, PDFObject][] {
-  const d = node instanceof PDFRef ? ctx.lookup(node) : node;
-  if (!(d instanceof PDFDict)) return [];
-  const out: [number, PDFObject][] = [];
-  const nums = d.lookupMaybe(N('Nums'), PDFArray);
-  for (let i = 0; nums && i + 1 < nums.size(); i += 2) out.push([nums.lookup(i, PDFNumber).asNumber(), nums.get(i + 1)]);
-  const kids = d.lookupMaybe(N('Kids'), PDFArray);
-  for (let i = 0; kids && i < kids.size(); i++) out.push(...numberTree(ctx, kids.get(i)));
-  return out;
-}
-
-/** The entries of a name tree (its /Names, and its /Kids' in order). */
-function nameTree(ctx: PDFContext, node: PDFObject | undefined): [string, PDFObject][] {
-  const d = node instanceof PDFRef ? ctx.lookup(node) : node;
-  if (!(d instanceof PDFDict)) return [];
-  const out: [string, PDFObject][] = [];
-  const names = d.lookupMaybe(N('Names'), PDFArray);
-  for (let i = 0; names && i + 1 < names.size(); i += 2) out.push([String(names.get(i)), names.get(i + 1)]);
-  const kids = d.lookupMaybe(N('Kids'), PDFArray);
-  for (let i = 0; kids && i < kids.size(); i++) out.push(...nameTree(ctx, kids.get(i)));
-  return out;
 }
