@@ -97,3 +97,9 @@ export function generateArchive(root: string, count: number, seed = 7, size: Job
   }
   return { root, jobs, circuits };
 }
+
+/** The bench's large job: one job of `circuits` circuits, about 40 a board, under `root`; its folder and boards. */
+export function generateLargeJob(root: string, circuits: number): { dir: string; boards: number } {
+  const boards = Math.max(1, Math.round(circuits / 40));
+  return { dir: generateArchive(root, 1, 7, { circuits: [circuits, circuits], boards: [boards, boards] }).jobs[0]!, boards };
+}

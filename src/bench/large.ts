@@ -11,7 +11,7 @@ import { pathToFileURL } from 'node:url';
 import { build } from '../build.js';
 import { findChromium } from '../print/browser.js';
 import { lazyPrinter, type Printer } from '../produce.js';
-import { generateArchive } from './generate.js';
+import { generateLargeJob } from './generate.js';
 import { sampleTree } from './memory.js';
 
 export interface LargeJobFigures {
@@ -31,11 +31,10 @@ export interface LargeJobFigures {
 }
 
 /** Build one generated job of `circuits` circuits into a temporary folder; the figures of that build. */
-export async function largeJob(circuits: number, keep = false): Promise<LargeJobFigures> {
+export async function largeJobInProcess(circuits: number, keep = false): Promise<LargeJobFigures> {
   const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-large-'));
-  const boards = Math.max(1, Math.round(circuits / 40));
   try {
-    const job = generateArchive(join(root, 'projects'), 1, 7, { circuits: [circuits, circuits], boards: [boards, boards] });
+    const { dir, boards } = generateLargeJob(join(root, 'projects'), circuits);
     const chromium = findChromium();
     const printer = chromium ? lazyPrinter(chromium) : null;
     let printSeconds = 0;
@@ -52,7 +51,7 @@ export async function largeJob(circuits: number, keep = false): Promise<LargeJob
     };
     const mem = sampleTree(() => process.pid, 100);
     const t0 = performance.now();
-    const r = await build({ jobs: job.jobs, out: join(root, 'out'), printer: timed, progress: { isTTY: false, write: () => true }, log: (l) => process.stderr.write(`${l}\n`) })
+    const r = await build({ jobs: [dir], out: join(root, 'out'), printer: timed, progress: { isTTY: false, write: () => true }, log: (l) => process.stderr.write(`${l}\n`) })
       .catch((e: unknown) => e instanceof Error ? e : new Error(String(e)));
     const seconds = (performance.now() - t0) / 1000;
     const peakMb = mem.stop();
@@ -64,7 +63,7 @@ export async function largeJob(circuits: number, keep = false): Promise<LargeJob
     if (!pdf) throw failed('no Chromium');
     const { PDFDocument } = await import('pdf-lib');
     const pages = (await PDFDocument.load(readFileSync(pdf), { updateMetadata: false })).getPageCount();
-    return { circuits: job.circuits, boards, pages, seconds, printSeconds, peakMb, atPeak, peakPssMb };
+    return { circuits, boards, pages, seconds, printSeconds, peakMb, atPeak, peakPssMb };
   } finally {
     if (keep) process.stderr.write(`kept ${root}\n`);
     else rmSync(root, { recursive: true, force: true });
@@ -75,7 +74,7 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   const { values } = parseArgs({ options: { circuits: { type: 'string', default: '2000' }, keep: { type: 'boolean' } } });
   const n = Number(values.circuits);
   if (!Number.isInteger(n) || n < 1) throw new Error(`--circuits ${values.circuits}: expected a whole number`);
-  largeJob(n, values.keep ?? false).then(
+  largeJobInProcess(n, values.keep ?? false).then(
     (f) => process.stdout.write(`large job: ${f.circuits} circuits on ${f.boards} boards, ${f.pages} pages, ${f.seconds.toFixed(1)} s (print ${f.printSeconds.toFixed(1)} s), peak ${f.peakMb.toFixed(0)} MB RSS, ${f.peakPssMb.toFixed(0)} MB PSS (node + Chromium; at the RSS peak, MB: ${Object.entries(f.atPeak).map(([k, v]) => `${k} ${v}`).join(', ')})\n`),
     (e: unknown) => {
       process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);

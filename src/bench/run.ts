@@ -23,7 +23,7 @@ import { createPrintPool, defaultPoolSize } from '../print/pool.js';
 import { generateArchive } from './generate.js';
 import { sampleTree } from './memory.js';
 import { describeTimes, previewRefresh } from './serve.js';
-import { checkStart, largeJob, rebuildAfterRetest, retest } from './scale.js';
+import { checkStart, largeJobFromShell, rebuildAfterRetest, retest } from './scale.js';
 
 const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' }, quick: { type: 'boolean' } } });
 const quick = values.quick === true;
@@ -119,7 +119,7 @@ async function main() {
     say(`rebuild at ${size} jobs ${rebuilds.at(-1)!.seconds.toFixed(2)} s`);
   }
   const largeCircuits = quick ? 200 : 2000;
-  const large = await largeJob(root, largeCircuits);
+  const large = await largeJobFromShell(root, largeCircuits);
   say(`${largeCircuits}-circuit job ${large.seconds.toFixed(1)} s, exit ${large.code}`);
   const checks = checkStart(root);
   // ---- packsmith serve: a save of the biggest job until the open preview shows it

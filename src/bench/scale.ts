@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { PDFDocument } from 'pdf-lib';
 import { build } from '../build.js';
 import type { Printer } from '../produce.js';
-import { generateArchive } from './generate.js';
+import { generateArchive, generateLargeJob } from './generate.js';
 import { sampleTree } from './memory.js';
 
 const CLI = fileURLToPath(new URL('../cli.js', import.meta.url));
@@ -50,11 +50,11 @@ export async function rebuildAfterRetest(root: string, count: number): Promise<{
 }
 
 /** One job of `circuits` circuits built by the command line: wall time, exit code, pages, and peak memory of the whole process tree. */
-export async function largeJob(root: string, circuits: number): Promise<{ seconds: number; code: number | null; pages: number | null; peakMb: number; error: string }> {
-  const [job] = generateArchive(join(root, `large-${circuits}`), 1, 13, { circuits: [circuits, circuits], boards: [Math.max(1, Math.round(circuits / 40)), Math.max(1, Math.round(circuits / 40))] }).jobs;
+export async function largeJobFromShell(root: string, circuits: number): Promise<{ seconds: number; code: number | null; pages: number | null; peakMb: number; error: string }> {
+  const job = generateLargeJob(join(root, `large-${circuits}`), circuits).dir;
   const out = join(root, `large-out-${circuits}`);
   const t = process.hrtime.bigint();
-  const child = spawn(process.execPath, [CLI, 'build', job!, '--out', out], { stdio: ['ignore', 'ignore', 'pipe'] });
+  const child = spawn(process.execPath, [CLI, 'build', job, '--out', out], { stdio: ['ignore', 'ignore', 'pipe'] });
   const mem = sampleTree(() => child.pid, 100);
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => { stderr += d.toString(); });
