@@ -230,10 +230,15 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
       const built = add(result.built, { job: project.name, html: htmlPath, pdf: null as string | null }, i);
       const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
+      // what the stamp records of the job, taken now: the closures below, which live until the
+      // pack has printed, hold these and not the job, its assessment or its HTML (a large job's
+      // hundreds of MB)
+      const facts = { title: project.file.title, client: project.file.client.name, site: project.file.site.address, summary: assessment.summary };
+      const jobName = project.name;
       const stamp = () => {
         const text = stampBytes({
-          format: 'packsmith-build/1', fingerprint, archive: where.archive, title: project.file.title, client: project.file.client.name, site: project.file.site.address,
-          date, summary: assessment.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
+          format: 'packsmith-build/1', fingerprint, archive: where.archive, title: facts.title, client: facts.client, site: facts.site,
+          date, summary: facts.summary, outputs, output_stats: outputStats(target, Object.keys(outputs)), source,
         });
         writeReplacing(join(target, STAMP_FILE), text);
         look.stamps.wrote(target, text);
@@ -245,7 +250,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
           outputs['pack.pdf'] = sha256(pdf);
           built.pdf = pdfPath;
           stamp();
-          progress.tick(project.name);
+          progress.tick(jobName);
         }));
         await printer.room(); // the pages print while the next packs render, without queueing the whole build
       } else {

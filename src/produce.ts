@@ -68,8 +68,12 @@ export function packFiles(project: Project, assessment: Assessment, label: PackL
   return renderPackFiles(project, assessment, { revisionLabel: label.label, draft: label.draft, date: label.date, paper: style.paper, changes, acceptedOpenItems: label.acceptedOpenItems ?? false, keyFingerprint: label.keyFingerprint ?? null }, style.engine);
 }
 
-export async function packPdf(
-  printer: Printer, htmlPath: string, project: Project, label: PackLabel, pack: RenderedPack, paper: Paper, dataJson: string,
+/**
+ * Print a pack. Not an async function: what it is given (the job, the pack's HTML) is not held
+ * while the pack prints, only the metadata made from it and the running header and footer.
+ */
+export function packPdf(
+  printer: Printer, htmlPath: string, project: Project, label: PackLabel, pack: Pick<RenderedPack, 'header' | 'footer'>, paper: Paper, dataJson: string,
 ): Promise<Uint8Array> {
   // the metadata goes in as the PDF is made (a large pack's is joined from parts straight to a file)
   const metadata: PdfMetadata = {
@@ -82,7 +86,7 @@ export async function packPdf(
     creator: 'packsmith',
     attachments: [{ name: 'data.json', bytes: Buffer.from(dataJson), mimeType: 'application/json', description: 'The validated job data and its assessment' }],
   };
-  return (await printer.print(htmlPath, { header: pack.header, footer: pack.footer, format: paper, metadata })).pdf;
+  return printer.print(htmlPath, { header: pack.header, footer: pack.footer, format: paper, metadata }).then((r) => r.pdf);
 }
 
 /** A pool of print pages on one Chromium, started the first time a pack needs printing (a build with nothing to print starts none). */

@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { PDFOptions } from 'puppeteer-core';
 import { splitPack } from './parts.js';
+import { collectGarbage } from './collect.js';
 import type { PageSize } from './join.js';
 import type { PdfMetadata } from './metadata.js';
 
@@ -37,12 +38,18 @@ export async function printInParts(
   const { PdfJoiner } = await import('./join.js'); // pdf-lib, loaded only by a run that prints
   const joiner = new PdfJoiner(joined);
   try {
-    const parts = splitPack(readFileSync(htmlPath, 'utf8'), partBytes);
-    for (const [i, part] of parts.entries()) {
+    // every part written out first: only their files and headings are held while they print,
+    // not the pack's HTML and every part's (a part's text keeps the whole pack's alive)
+    const parts = splitPack(readFileSync(htmlPath, 'utf8'), partBytes).map((part, i) => {
       const path = join(dir, `part-${i + 1}.html`);
       writeFileSync(path, part.html);
-      const pdf = await printFile(path, { ...options, footerTemplate: EMPTY });
+      return { path, headings: part.headings };
+    });
+    collectGarbage(); // the cutting's garbage (the pack's HTML and every part's) goes before Chromium lays out the first part
+    for (const part of parts) {
+      const pdf = await printFile(part.path, { ...options, footerTemplate: EMPTY });
       await joiner.add({ pdf, headings: part.headings });
+      collectGarbage(); // the part's parsed objects, before the next part is parsed (collect.ts)
     }
     const footer = join(dir, 'footer.html');
     writeFileSync(footer, blankSheets(joiner.sizes()));
