@@ -74,9 +74,15 @@ export function clearStaleProfiles(folder = profilesFolder()): string[] {
       /* no lock: Chromium is not running on it */
     }
     if (chromium > 0 && alive(chromium)) continue;
-    const socketDir = singletonDir(join(folder, name));
-    if (socketDir) rmSync(socketDir, { recursive: true, force: true });
-    rmSync(join(folder, name), { recursive: true, force: true });
+    try {
+      const socketDir = singletonDir(join(folder, name));
+      if (socketDir) rmSync(socketDir, { recursive: true, force: true });
+      rmSync(join(folder, name), { recursive: true, force: true });
+    } catch {
+      // another packsmith starting at the same moment removing it too (its files vanish under
+      // this removal), or a file that will not go: a clean-up never stops a print; the next run tries again
+      continue;
+    }
     removed.push(name);
   }
   return removed;
