@@ -77,7 +77,8 @@ export function clearStaleProfiles(folder = profilesFolder()): string[] {
     try {
       const socketDir = singletonDir(join(folder, name));
       if (socketDir) rmSync(socketDir, { recursive: true, force: true });
-      rmSync(join(folder, name), { recursive: true, force: true });
+      // a Chromium's last processes may still be writing as they end: tried again briefly
+      rmSync(join(folder, name), { recursive: true, force: true, maxRetries: 5, retryDelay: 50 });
     } catch {
       // another packsmith starting at the same moment removing it too (its files vanish under
       // this removal), or a file that will not go: a clean-up never stops a print; the next run tries again
