@@ -12,7 +12,7 @@
 // PACKSMITH_KILLS=50 (npm run kill-campaign) kills at three named steps and 50 random moments,
 // each followed by the next issue's recovery.
 import { beforeAll, afterAll, describe, expect, it } from 'vitest';
-import { cpSync, existsSync, readdirSync, readFileSync, readlinkSync } from 'node:fs';
+import { cpSync, existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
 import { packsmith, run, startPacksmith } from '../helpers/cli.js';
@@ -135,17 +135,22 @@ describe(`an issue killed outright (${KILLS} random moments and ${KILLED_AT.leng
     ...Array.from({ length: KILLS }, (_, i) => ({ name: `kill ${i + 1} of ${KILLS}`, step: null, at: random() })),
   ];
   const profiles = () => (existsSync(profilesFolder()) ? readdirSync(profilesFolder()) : []);
-  /** Wait (up to 15 s) until no Chromium named by the lock of a profile of run `pid` is running. */
+  /**
+   * Wait (up to 15 s) until no Chromium of run `pid` is running: no process whose command line
+   * names one of that run's profiles (Linux's /proc). A run killed while its Chromium starts
+   * leaves a Chromium that has no lock in its profile yet and goes on writing there as it ends.
+   */
   const chromiumEnded = async (pid: number): Promise<void> => {
-    const running = (name: string): boolean => {
+    const mark = `--user-data-dir=${join(profilesFolder(), `${pid}-`)}`;
+    const running = (): boolean => readdirSync('/proc').some((p) => {
+      if (!/^\d+$/.test(p)) return false;
       try {
-        const chromium = Number(/-(\d+)$/.exec(readlinkSync(join(profilesFolder(), name, 'SingletonLock')))?.[1] ?? 0);
-        return chromium > 0 && (process.kill(chromium, 0), true);
+        return readFileSync(`/proc/${p}/cmdline`, 'latin1').includes(mark);
       } catch {
-        return false; // no lock, or no such process
+        return false; // ended meanwhile
       }
-    };
-    for (let waited = 0; waited < 15_000 && profiles().some((p) => p.startsWith(`${pid}-`) && running(p)); waited += 100) await sleep(100);
+    });
+    for (let waited = 0; waited < 15_000 && running(); waited += 100) await sleep(100);
   };
 
   it.each(cases)('$name: the record is recoverable, and the next issue recovers it', async (c) => {
