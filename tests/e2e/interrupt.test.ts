@@ -12,7 +12,7 @@
 // PACKSMITH_KILLS=50 (npm run kill-campaign) kills at three named steps and 50 random moments,
 // each followed by the next issue's recovery.
 import { beforeAll, afterAll, describe, expect, it } from 'vitest';
-import { cpSync, existsSync, readdirSync, readFileSync } from 'node:fs';
+import { cpSync, existsSync, readdirSync, readFileSync, readlinkSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
 import { packsmith, run, startPacksmith } from '../helpers/cli.js';
@@ -153,6 +153,20 @@ describe(`an issue killed outright (${KILLS} random moments and ${KILLED_AT.leng
     for (let waited = 0; waited < 15_000 && running(); waited += 100) await sleep(100);
   };
 
+  /** The profiles of run `pid` still there, each with what may say why: its lock, the process the lock names, its files. */
+  const profilesLeft = (pid: number, nextSaid: string): string[] => profiles().filter((p) => p.startsWith(`${pid}-`)).map((p) => {
+    const dir = join(profilesFolder(), p);
+    let lock = 'none';
+    let holder = '';
+    try {
+      lock = readlinkSync(join(dir, 'SingletonLock'));
+      holder = readFileSync(`/proc/${/-(\d+)$/.exec(lock)?.[1]}/cmdline`, 'latin1').replace(/\0/g, ' ').slice(0, 200);
+    } catch {
+      holder ||= 'no such process';
+    }
+    return `${p}: lock ${lock} (${holder}); files ${readdirSync(dir).join(',')}; changed ${Math.round(Date.now() - statSync(dir).mtimeMs)} ms ago; the next run said: ${nextSaid.slice(0, 300)}`;
+  });
+
   it.each(cases)('$name: the record is recoverable, and the next issue recovers it', async (c) => {
     const root = place('interrupt-kill');
     let killed = false;
@@ -178,7 +192,7 @@ describe(`an issue killed outright (${KILLS} random moments and ${KILLED_AT.leng
         expect([0, 1]).toContain(next.code);
         if (next.code === 1) expect(next.stderr).toMatch(/nothing changed since Revision 2/);
         expect((await run(['verify', join(root, 'projects')])).code).toBe(0);
-        expect(profiles().some((p) => p.startsWith(`${issuing.child.pid}-`))).toBe(false); // the next run removed the killed run's profile
+        expect(profilesLeft(issuing.child.pid!, next.stderr)).toEqual([]); // the next run removed the killed run's profile
       }
     }
     expect(killed).toBe(true);
