@@ -1,6 +1,6 @@
 // One headless Chromium for a whole build, started with puppeteer-core from the system's
 // Chromium (PACKSMITH_CHROME, else the usual Debian paths). Never downloads a browser.
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readlinkSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, readlinkSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import puppeteer, { type Browser } from 'puppeteer-core';
@@ -42,14 +42,30 @@ export interface PrintBrowser {
 /** Chromium's profile folders, one per running packsmith, all in one folder of the temporary folder. */
 export const profilesFolder = (): string => join(tmpdir(), `packsmith-chromium-${process.getuid?.() ?? 'user'}`);
 
+/** Whether a process runs: it exists and has not ended (an ended process not yet reaped is not running). */
 const alive = (pid: number): boolean => {
   try {
     process.kill(pid, 0);
-    return true;
   } catch (e) {
     return (e as NodeJS.ErrnoException).code === 'EPERM';
   }
+  return !ended(pid);
 };
+
+/**
+ * Whether a process has ended and waits only to be reaped (Linux: state Z in /proc/PID/stat); false
+ * where that cannot be told. The Chromium of a packsmith killed outright is handed to the system's
+ * first process, which in a container often never reaps it: it would otherwise count as running,
+ * and its profile would be kept for good.
+ */
+function ended(pid: number): boolean {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'latin1');
+    return stat.slice(stat.lastIndexOf(')') + 2).startsWith('Z');
+  } catch {
+    return false;
+  }
+}
 
 /**
  * Remove the profile folders of runs that ended without removing theirs (killed outright): a

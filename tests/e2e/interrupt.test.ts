@@ -137,8 +137,9 @@ describe(`an issue killed outright (${KILLS} random moments and ${KILLED_AT.leng
   const profiles = () => (existsSync(profilesFolder()) ? readdirSync(profilesFolder()) : []);
   /**
    * Wait (up to 15 s) until no Chromium of run `pid` is running: no process whose command line
-   * names one of that run's profiles (Linux's /proc). A run killed while its Chromium starts
-   * leaves a Chromium that has no lock in its profile yet and goes on writing there as it ends.
+   * names one of that run's profiles (Linux's /proc). A Chromium that has ended but is not yet
+   * reaped shows no command line, and counts as ended here as it does for packsmith
+   * (src/print/browser.ts).
    */
   const chromiumEnded = async (pid: number): Promise<void> => {
     const mark = `--user-data-dir=${join(profilesFolder(), `${pid}-`)}`;
@@ -186,7 +187,7 @@ describe(`an issue killed outright (${KILLS} random moments and ${KILLED_AT.leng
         // the next run recovers (every kill of the campaign; in the suite, the kill while Chromium was up)
         if (!CAMPAIGN && c.step !== 'printed') continue;
         // the killed run's Chromium ends on its own once its pipe closes (a second or so on a loaded
-        // machine), and its profile is kept while it runs: the next run starts once it has ended
+        // machine), and its profile is rightly kept while it runs: the next run starts once it has ended
         await chromiumEnded(issuing.child.pid!);
         const next = packsmith(issueArgs(root)); // a process of its own, as after a real kill: it clears the killed run's profile
         expect([0, 1]).toContain(next.code);
