@@ -9,7 +9,7 @@ import type { Changes } from './render/view.js';
 import { BUILTIN_TEMPLATES, type Engine } from './render/engine.js';
 import { renderPackFiles, type RenderedPack } from './render/pack.js';
 import { clearStaleProfiles, launchBrowser, type PrintBrowser } from './print/browser.js';
-import { createPrintPool, defaultPoolSize, type PrintPool } from './print/pool.js';
+import { createPrintPool, roomLimit, type PrintPool } from './print/pool.js';
 import type { PdfMetadata } from './print/metadata.js';
 import { combinedHash, fileHashes, readTree, sha256 } from './archive/hash.js';
 import { VERSION } from './version.js';
@@ -155,7 +155,7 @@ export function lazyPrinter(chromium: string, poolSize?: number): Printer {
     // handed over as the pool would hold queued, instead of waiting for the start
     room: async () => {
       if (!started) return;
-      if (!ready && early < (poolSize ?? defaultPoolSize()) * 2) return;
+      if (!ready && early < roomLimit(poolSize)) return;
       await (await started).pool.room();
     },
     warm: () => {

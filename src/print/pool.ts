@@ -20,6 +20,9 @@ export interface PrintPool {
 
 export const defaultPoolSize = (): number => Math.max(1, availableParallelism());
 
+/** How many packs a pool of `size` pages holds printing or queued before `room` makes a producer wait. */
+export const roomLimit = (size: number = defaultPoolSize()): number => size * 2;
+
 export function createPrintPool(browser: Browser, size: number = defaultPoolSize()): PrintPool {
   if (!Number.isInteger(size) || size < 1) throw new Error(`a print pool needs at least one page (asked for ${size})`);
   const idle: PrintPage[] = [];
@@ -93,7 +96,7 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
         settle();
       }
     },
-    room(limit = size * 2) {
+    room(limit = roomLimit(size)) {
       if (pending < limit) return Promise.resolve();
       return new Promise((resolve) => roomWaiters.push({ limit, resolve }));
     },
