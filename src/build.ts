@@ -84,36 +84,39 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
   return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
 }
 
-/** Memoised per build: the archive settings of a job folder's holder, what the archive holds for a job, and each draft's stamp. */
+/**
+ * `make` for a job folder, worked once per holder folder (the folder the job folders are in) and
+ * kept, a throw included: what is read from the holder upwards, the firm file and the archive
+ * settings, is the same for every job folder in it.
+ */
+function perHolder<T>(make: (dir: string) => T): (dir: string) => T {
+  const kept = new Map<string, { value: T } | { error: unknown }>();
+  return (dir) => {
+    const holder = resolve(dir, '..');
+    let k = kept.get(holder);
+    if (!k) {
+      try {
+        k = { value: make(dir) };
+      } catch (error) {
+        k = { error };
+      }
+      kept.set(holder, k);
+    }
+    if ('error' in k) throw k.error;
+    return k.value;
+  };
+}
+
+/** Memoised per build: the archive settings and firm file of a job folder's holder, what the archive holds for a job, and each draft's stamp. */
 function lookups(override: string | null, out: string) {
-  const settings = new Map<string, ArchiveSettings>();
   const archives = new Map<string, JobArchive>();
   const known = knownHashes(out);
-  const firms = new Map<string, ReturnType<FirmBytes> | Error>();
   return {
     known,
     stamps: stampMemo(),
     /** the firm file of a job folder's holder, read once */
-    firmOf: (dir: string): ReturnType<FirmBytes> => {
-      const holder = resolve(dir, '..');
-      let f = firms.get(holder);
-      if (f === undefined) {
-        try {
-          f = firmBytesOf(dir);
-        } catch (e) {
-          f = e instanceof Error ? e : new Error(String(e));
-        }
-        firms.set(holder, f);
-      }
-      if (f instanceof Error) throw f;
-      return f;
-    },
-    settingsOf: (dir: string): ArchiveSettings => {
-      const holder = resolve(dir, '..');
-      let s = settings.get(holder);
-      if (!s) settings.set(holder, (s = jobArchiveSettings(dir, override)));
-      return s;
-    },
+    firmOf: perHolder(firmBytesOf),
+    settingsOf: perHolder((dir): ArchiveSettings => jobArchiveSettings(dir, override)),
     inspect: (archive: string, job: string): JobArchive => {
       const key = `${archive}\0${job}`;
       let a = archives.get(key);
