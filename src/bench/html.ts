@@ -2,7 +2,7 @@
 // templates and written, on one core. Also runnable alone, for a profile:
 //
 //   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N]
-//   node --expose-gc dist/bench/html.js --jobs 240 --heap   (heap retained after 30, 60, 120, 240 jobs)
+//   node dist/bench/html.js --jobs 240 --heap   (heap retained after 30, 60, 120, 240 jobs)
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -13,6 +13,7 @@ import { engineCache } from '../render/engine.js';
 import { renderPackFiles } from '../render/pack.js';
 import type { PdfOptions } from '../print/pdf.js';
 import { generateArchive } from './generate.js';
+import { collectGarbage } from '../print/collect.js';
 
 export interface HtmlStage {
   seconds: number;
@@ -52,12 +53,13 @@ export function htmlStage(jobs: string[], htmlDir: string): HtmlStage {
 
 /**
  * Memory flat in the number of jobs: the heap still held after a full collection, once the HTML
- * stage has run over 30, 60, 120, ... jobs (`node --expose-gc dist/bench/html.js --jobs 240 --heap`).
+ * stage has run over 30, 60, 120, ... jobs (`node dist/bench/html.js --jobs 240 --heap`).
  * What a stage keeps (bounded caches, the engine) shows as a constant; a leak, as growth.
  */
 function retainedHeap(jobs: string[], htmlDir: string): void {
-  const gc = (globalThis as { gc?: () => void }).gc;
-  if (!gc) throw new Error('--heap needs node --expose-gc');
+  const gc = () => {
+    if (!collectGarbage()) throw new Error('--heap needs V8\'s collector, which this Node does not hand over');
+  };
   for (let n = Math.min(30, jobs.length); ; n = Math.min(n * 2, jobs.length)) {
     htmlStage(jobs.slice(0, n), htmlDir);
     gc();

@@ -13,8 +13,8 @@ import { runInNewContext } from 'node:vm';
 
 let gc: (() => void) | null | undefined;
 
-/** Collect garbage now (a full collection); does nothing where the collector cannot be reached. */
-export function collectGarbage(): void {
+/** Collect garbage now (a full collection). False, having done nothing, where the collector cannot be reached. */
+export function collectGarbage(): boolean {
   if (gc === undefined) {
     try {
       setFlagsFromString('--expose-gc');
@@ -25,4 +25,5 @@ export function collectGarbage(): void {
     }
   }
   gc?.();
+  return gc !== null;
 }
