@@ -11,6 +11,7 @@ import { run, NO_ARCHIVE } from '../helpers/cli.js';
 import { againstStored, difference } from '../helpers/screenshot.js';
 import { defaultJobs } from '../../src/build.js';
 import { findChromium, launchBrowser, type PrintBrowser } from '../../src/print/browser.js';
+import { printPdf } from '../../src/print/pdf.js';
 
 const out = mkdtempSync(join(tmpdir(), 'packsmith-site-'));
 const STORED = fileURLToPath(new URL('./screenshots/pack-job-page-1.png', import.meta.url));
@@ -156,6 +157,50 @@ describe('the built site in Chromium', () => {
     const d = againstStored(shot, STORED_PHONE);
     expect(d.sameSize).toBe(true);
     expect(d.differing / d.total).toBeLessThan(0.002);
+  });
+
+  // pack.css lays out on a screen only the parts of a pack in view where scripts are off, as on the
+  // printer's page (print/pdf.ts), so that page does not lay a long pack out twice; a reader's
+  // browser, and the print itself, must not change
+  const SCRIPTS_OFF_RULE = /@media [^{]*\(scripting: none\) \{[^{}]*\{[^{}]*\}\s*\}/;
+  const laidOut = (p: Page) => p.evaluate(() => ({
+    scriptsOff: matchMedia('(scripting: none)').matches,
+    skippable: [...document.querySelectorAll('section.board, .circuit')].map((el) => getComputedStyle(el).contentVisibility),
+  }));
+
+  it('lays out only what is in view on a page with scripts off, as the printer opens a pack, and all of it for a reader', async () => {
+    const pack = pathToFileURL(join(out, 'tannery-row-refit/draft/pack.html')).href;
+    const printers = await browser.browser.newPage();
+    try {
+      await printers.setJavaScriptEnabled(false);
+      await printers.goto(pack, { waitUntil: 'load' });
+      const off = await laidOut(printers);
+      expect(off.scriptsOff).toBe(true);
+      expect(off.skippable.length).toBeGreaterThan(10); // its board and every circuit of the appendix
+      expect(new Set(off.skippable)).toEqual(new Set(['auto']));
+    } finally {
+      await printers.close();
+    }
+    await page.setViewport({ width: 1200, height: 900, deviceScaleFactor: 1 });
+    await page.goto(pack, { waitUntil: 'load' });
+    const on = await laidOut(page);
+    expect(on.scriptsOff).toBe(false);
+    expect(new Set(on.skippable)).toEqual(new Set(['visible']));
+  });
+
+  it('prints a pack byte for byte as it would without that rule', async () => {
+    const html = join(out, 'tannery-row-refit/draft/pack.html');
+    const without = join(out, 'tannery-row-refit/draft/without-rule.html');
+    const text = readFileSync(html, 'utf8');
+    expect(text).toMatch(SCRIPTS_OFF_RULE);
+    writeFileSync(without, text.replace(SCRIPTS_OFF_RULE, ''));
+    // the pack's fixed dates and renumbered structure ids (print/metadata.ts): two prints of one pack are the same bytes
+    const metadata = { title: 't', author: 'a', subject: 's', keywords: [], date: '2026-03-06', producer: 'p', creator: 'c', attachments: [] };
+    const opts = { header: '<span></span>', footer: '<span class="pageNumber"></span>', metadata };
+    const a = (await printPdf(browser.browser, html, opts)).pdf;
+    const b = (await printPdf(browser.browser, without, opts)).pdf;
+    expect(a.length).toBeGreaterThan(10_000);
+    expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
   });
 
   it('finds jobs on the archive index as you type, sorts them by date, and never wraps a date', async () => {
