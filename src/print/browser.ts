@@ -3,7 +3,7 @@
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, readlinkSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
-import puppeteer, { type Browser } from 'puppeteer-core';
+import puppeteer, { type Browser, type Page } from 'puppeteer-core';
 
 const CANDIDATES = ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome-stable', '/usr/bin/google-chrome'];
 
@@ -36,6 +36,11 @@ export const NO_CHROMIUM_HELP =
 
 export interface PrintBrowser {
   browser: Browser;
+  /**
+   * A page to print on: the first time, the tab Chromium opened at start (closing it and opening
+   * another cost a renderer's start, some 0.2 s before the first print); then a new one each time.
+   */
+  newPage(): Promise<Page>;
   close(): Promise<void>;
 }
 
@@ -163,11 +168,18 @@ export async function launchBrowser(executablePath: string): Promise<PrintBrowse
     rmSync(profile, { recursive: true, force: true });
     throw e;
   }
-  // the tab Chromium opens at start is never printed on: its renderer goes (the browser stays up without tabs)
-  await Promise.all((await browser.pages().catch(() => [])).map((p) => p.close().catch(() => undefined)));
+  // the tab Chromium opens at start is kept for the first page asked for; any other it opened goes
+  const [first, ...others] = await browser.pages().catch(() => []);
+  await Promise.all(others.map((p) => p.close().catch(() => undefined)));
+  let spare: Page | null = first ?? null;
 
   return {
     browser,
+    async newPage() {
+      const page = spare;
+      spare = null;
+      return page !== null && !page.isClosed() ? page : browser.newPage();
+    },
     async close() {
       const socketDir = singletonDir(profile);
       try {

@@ -2,7 +2,7 @@
 // once (no JavaScript, requests refused) and reused from pack to pack. `print` queues when every
 // page is busy; `room` lets a producer wait instead of queueing the whole build at once.
 import { availableParallelism } from 'node:os';
-import type { Browser } from 'puppeteer-core';
+import type { Browser, Page } from 'puppeteer-core';
 import { preparePage, type PdfOptions, type PrintPage } from './pdf.js';
 
 export interface PrintPool {
@@ -23,7 +23,8 @@ export const defaultPoolSize = (): number => Math.max(1, availableParallelism())
 /** How many packs a pool of `size` pages holds printing or queued before `room` makes a producer wait. */
 export const roomLimit = (size: number = defaultPoolSize()): number => size * 2;
 
-export function createPrintPool(browser: Browser, size: number = defaultPoolSize()): PrintPool {
+/** `newPage` opens each page the pool prints on (a launched browser's own, to print first on the tab Chromium opened at start). */
+export function createPrintPool(browser: Browser, size: number = defaultPoolSize(), newPage: () => Promise<Page> = () => browser.newPage()): PrintPool {
   if (!Number.isInteger(size) || size < 1) throw new Error(`a print pool needs at least one page (asked for ${size})`);
   const idle: PrintPage[] = [];
   const all = new Set<PrintPage>();
@@ -40,7 +41,7 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   const open = async (): Promise<PrintPage> => {
     opening += 1;
     try {
-      const p = await preparePage(await browser.newPage());
+      const p = await preparePage(await newPage());
       all.add(p);
       return p;
     } finally {

@@ -44,6 +44,27 @@ describe('the print pool', () => {
     expect((await browser.browser.pages()).length).toBe(pagesBefore);
   });
 
+  it('prints first on the tab Chromium opened at start, given the launched browser\'s pages, and then opens new ones', async () => {
+    const own = await launchBrowser(chromium!);
+    try {
+      const [atStart, ...more] = await own.browser.pages();
+      expect(atStart).toBeDefined();
+      expect(more).toEqual([]);
+      const pool = createPrintPool(own.browser, 2, () => own.newPage());
+      await pool.print(files[0]!, OPTS);
+      // one pack: printed on the tab that was there, no page opened
+      expect(await own.browser.pages()).toEqual([atStart]);
+      await Promise.all(files.slice(0, 4).map((f) => pool.print(f, OPTS)));
+      const open = await own.browser.pages();
+      expect(open).toHaveLength(2);
+      expect(open).toContain(atStart);
+      await pool.close();
+      expect(await own.browser.pages()).toEqual([]);
+    } finally {
+      await own.close();
+    }
+  });
+
   it('replaces a page whose print failed, and goes on printing', async () => {
     const pool = createPrintPool(browser.browser, 1);
     await expect(pool.print(join(dir, 'missing.html'), OPTS)).rejects.toThrow(/ERR_FILE_NOT_FOUND/);
