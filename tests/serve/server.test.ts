@@ -75,12 +75,19 @@ describe('packsmith serve over HTTP', () => {
       const r = request({ host: '127.0.0.1', port: s.port, path: '/events?job=pack-job', headers: { host: `127.0.0.1:${s.port}` } }, (res) => {
         let text = '';
         const waiting: ((t: string) => void)[] = [];
-        res.on('data', (d: Buffer) => {
-          text += d.toString();
-          const at = text.indexOf('event: reload');
-          if (at >= 0 && waiting.length) { waiting.shift()!(text.slice(at)); text = ''; }
-        });
-        resolve({ next: () => new Promise((ok) => waiting.push(ok)), close: () => r.destroy() });
+        // each whole reload event to the next waiter, in order: one that arrived before anyone
+        // waited for it (the version told on connecting) is kept until asked for
+        const deliver = () => {
+          while (waiting.length) {
+            const at = text.indexOf('event: reload');
+            const end = at < 0 ? -1 : text.indexOf('\n\n', at);
+            if (end < 0) return;
+            waiting.shift()!(text.slice(at, end));
+            text = text.slice(end + 2);
+          }
+        };
+        res.on('data', (d: Buffer) => { text += d.toString(); deliver(); });
+        resolve({ next: () => new Promise((ok) => { waiting.push(ok); deliver(); }), close: () => r.destroy() });
       });
       r.end();
     });
