@@ -110,8 +110,9 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
 
   const timers = new Map<string, NodeJS.Timeout>();
   let watcher: Watcher | null = null;
-  const renderNow = (name: string) => {
-    const changed = jobs.render(name);
+  /** `stale`: the caller has just found the job's files changed (so they are not read and hashed again to ask). */
+  const renderNow = (name: string, stale = false) => {
+    const changed = jobs.render(name, stale);
     const job = jobs.get(name);
     if (!job) return;
     if (job.theme) watcher?.add([job.theme]);
@@ -243,7 +244,7 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
       const job = jobs.get(name);
       if (!job) return sendPage(req, res, 404, messagePage('Not found', `No job "${name}" here.`, nonce), nonce);
       if (jobMatch[2] === undefined) return redirect(res, `/job/${encodeURIComponent(name)}/`);
-      if (jobs.stale(name)) renderNow(name); // a save the watcher has not reported (yet): render it now
+      if (jobs.stale(name)) renderNow(name, true); // a save the watcher has not reported (yet): render it now
       return jobRoute(req, res, jobs.get(name) ?? job, jobMatch[2], nonce);
     }
     if (path === '/site' || path === '/archive') return redirect(res, `${path}/`);
