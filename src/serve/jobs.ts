@@ -142,15 +142,14 @@ export class LiveJobs {
 
   /**
    * Load, validate, assess and render one job again. Returns true when its inputs changed since
-   * the last render (and the open pages should reload). `stale`: the caller has just found them
-   * changed (`stale()`), so they are not read and hashed again to ask.
+   * the last render (and the open pages should reload).
    */
-  render(name: string, stale = false): boolean {
+  render(name: string): boolean {
     const job = this.jobs.get(name);
     if (!job) return false;
     // a second report of the same save (an editor writing in steps, a watcher telling twice) costs
     // a read and a hash, not a load, check and render that would hold up the page's update
-    if (!stale && job.version > 0 && job.inputHash !== '' && !this.stale(name)) return false;
+    if (job.version > 0 && job.inputHash !== '' && !this.stale(name)) return false;
     const t0 = performance.now();
     const loaded = loadJob(job.dir, { today: today() });
     const inputHash = combinedHash(fileHashes(loaded.raw.files));

@@ -110,9 +110,8 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
 
   const timers = new Map<string, NodeJS.Timeout>();
   let watcher: Watcher | null = null;
-  /** `stale`: the caller has just found the job's files changed (so they are not read and hashed again to ask). */
-  const renderNow = (name: string, stale = false) => {
-    const changed = jobs.render(name, stale);
+  const renderNow = (name: string) => {
+    const changed = jobs.render(name);
     const job = jobs.get(name);
     if (!job) return;
     if (job.theme) watcher?.add([job.theme]);
@@ -244,7 +243,7 @@ export async function serve(opts: ServeOptions): Promise<Serving> {
       const job = jobs.get(name);
       if (!job) return sendPage(req, res, 404, messagePage('Not found', `No job "${name}" here.`, nonce), nonce);
       if (jobMatch[2] === undefined) return redirect(res, `/job/${encodeURIComponent(name)}/`);
-      if (jobs.stale(name)) renderNow(name, true); // a save the watcher has not reported (yet): render it now
+      renderNow(name); // a save the watcher has not reported (yet) is rendered now: render() reads and hashes the files, and renders only when they changed
       return jobRoute(req, res, jobs.get(name) ?? job, jobMatch[2], nonce);
     }
     if (path === '/site' || path === '/archive') return redirect(res, `${path}/`);

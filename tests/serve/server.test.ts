@@ -176,11 +176,11 @@ describe('a page asked for is current, even where the watcher missed a save', ()
     edit(join(root, 'projects', 'pack-job'), 'readings/2026-03-06.csv', 'DB-A,1,0.9,>999,>999,500,ok,9.9', 'DB-A,1,0.9,>999,>999,500,ok,0.73');
     expect(jobs.stale('pack-job')).toBe(true);
     const version = jobs.get('pack-job')!.version;
-    expect(jobs.render('pack-job', true)).toBe(true); // told it is stale, as the page route tells it
+    expect(jobs.render('pack-job')).toBe(true);
     expect(jobs.get('pack-job')!.version).toBe(version + 1);
     expect(jobs.stale('pack-job')).toBe(false);
-    // told so wrongly, it still renders nothing new: the loaded files' hash is the same
-    expect(jobs.render('pack-job', true)).toBe(false);
+    // asked again with nothing changed (as every page asked for asks), it renders nothing new
+    expect(jobs.render('pack-job')).toBe(false);
     expect(jobs.get('pack-job')!.version).toBe(version + 1);
   });
 });
