@@ -137,7 +137,7 @@ export function lazyPrinter(chromium: string, poolSize?: number): Printer {
   let ready: PrintPool | null = null;
   let early = 0; // packs handed over while Chromium starts
   const start = () => (started ??= browserFor(chromium).then((browser) => {
-    ready = createPrintPool(browser.browser, poolSize, () => browser.newPage());
+    ready = createPrintPool(browser, poolSize);
     return { browser, pool: ready, own: shared === null };
   }));
   return {

@@ -85,7 +85,7 @@ async function main() {
 
   // ---- PDF stage, packsmith: one Chromium, the page pool, JavaScript off, requests refused
   const ours = await launchBrowser(chromium);
-  const pool = createPrintPool(ours.browser, width, () => ours.newPage());
+  const pool = createPrintPool(ours, width);
   mem = sampleTree(() => ours.browser.process()?.pid);
   t = now();
   const printing: Promise<unknown>[] = [];

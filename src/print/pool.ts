@@ -2,7 +2,7 @@
 // once (no JavaScript, requests refused) and reused from pack to pack. `print` queues when every
 // page is busy; `room` lets a producer wait instead of queueing the whole build at once.
 import { availableParallelism } from 'node:os';
-import type { Browser, Page } from 'puppeteer-core';
+import type { Page } from 'puppeteer-core';
 import { preparePage, type PdfOptions, type PrintPage } from './pdf.js';
 
 export interface PrintPool {
@@ -23,8 +23,11 @@ export const defaultPoolSize = (): number => Math.max(1, availableParallelism())
 /** How many packs a pool of `size` pages holds printing or queued before `room` makes a producer wait. */
 export const roomLimit = (size: number = defaultPoolSize()): number => size * 2;
 
-/** `newPage` opens each page the pool prints on (a launched browser's own, to print first on the tab Chromium opened at start). */
-export function createPrintPool(browser: Browser, size: number = defaultPoolSize(), newPage: () => Promise<Page> = () => browser.newPage()): PrintPool {
+/**
+ * A pool on `browser`, which opens each page it prints on: a launched browser (print/browser.ts),
+ * whose first page is the tab Chromium opened at start, or any puppeteer browser.
+ */
+export function createPrintPool(browser: { newPage(): Promise<Page> }, size: number = defaultPoolSize()): PrintPool {
   if (!Number.isInteger(size) || size < 1) throw new Error(`a print pool needs at least one page (asked for ${size})`);
   const idle: PrintPage[] = [];
   const all = new Set<PrintPage>();
@@ -41,7 +44,7 @@ export function createPrintPool(browser: Browser, size: number = defaultPoolSize
   const open = async (): Promise<PrintPage> => {
     opening += 1;
     try {
-      const p = await preparePage(await newPage());
+      const p = await preparePage(await browser.newPage());
       all.add(p);
       return p;
     } finally {

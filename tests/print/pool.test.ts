@@ -44,13 +44,13 @@ describe('the print pool', () => {
     expect((await browser.browser.pages()).length).toBe(pagesBefore);
   });
 
-  it('prints first on the tab Chromium opened at start, given the launched browser\'s pages, and then opens new ones', async () => {
+  it('prints first on the tab Chromium opened at start, given the launched browser, and then opens new ones', async () => {
     const own = await launchBrowser(chromium!);
     try {
       const [atStart, ...more] = await own.browser.pages();
       expect(atStart).toBeDefined();
       expect(more).toEqual([]);
-      const pool = createPrintPool(own.browser, 2, () => own.newPage());
+      const pool = createPrintPool(own, 2);
       await pool.print(files[0]!, OPTS);
       // one pack: printed on the tab that was there, no page opened
       expect(await own.browser.pages()).toEqual([atStart]);
