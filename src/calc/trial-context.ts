@@ -5,7 +5,7 @@
 // inputs, and the length-free parts of a check (`PREPARED`). A length then costs a few products
 // and one small object that reads everything else from the circuit's own context.
 import type { CircuitRecord } from '../model/validate.js';
-import type { Check, CircuitContext, VdOrigin } from './types.js';
+import type { Check, CircuitContext, LengthCheck, VdOrigin } from './types.js';
 import { designAt, perMetreDesign, type Design, type PerMetreDesign } from './design/index.js';
 import { designFault, faultInputs, type DesignFault, type FaultOptions } from './design/fault.js';
 import type { Device } from './devices/index.js';
@@ -13,12 +13,12 @@ import { originDrop } from './tree/origin.js';
 import { adiabatic, adiabaticAtLengths } from './checks/adiabatic.js';
 
 /** Checks with parts a circuit's length does not change: each maps the circuit to the check with those parts worked once. */
-const PREPARED: ReadonlyMap<Check, (base: CircuitContext) => Check> = new Map([[adiabatic, adiabaticAtLengths]]);
+const PREPARED: ReadonlyMap<Check, (base: CircuitContext) => LengthCheck> = new Map([[adiabatic, adiabaticAtLengths]]);
 
 export class TrialContext {
   readonly design: PerMetreDesign;
   readonly fault: { device: Device; options: FaultOptions };
-  private readonly prepared = new Map<Check, Check>();
+  private readonly prepared = new Map<Check, LengthCheck>();
 
   /** `base`: the circuit at its own length (its design's length-free parts are kept). */
   constructor(readonly base: CircuitContext) {
@@ -37,7 +37,7 @@ export class TrialContext {
    * The check to judge this circuit's lengths by: the same rule, its length-free parts worked
    * once. For trials in numbers only: a part kept keeps the words of the trial that worked it.
    */
-  check(check: Check): Check {
+  check(check: Check): LengthCheck {
     let c = this.prepared.get(check);
     if (!c) {
       c = PREPARED.get(check)?.(this.base) ?? check;

@@ -84,6 +84,13 @@ export interface VdOrigin {
 
 export type Check = (ctx: CircuitContext) => CheckResult;
 
+/**
+ * A check prepared to judge one circuit at many lengths (trial-context.ts). It may also say that
+ * it passes at no length at all, given the circuit at the shortest length tried: where a part of
+ * the check that the length does not change already keeps it from passing.
+ */
+export type LengthCheck = Check & { passesAtNoLength?: (shortest: CircuitContext) => boolean };
+
 export interface CircuitAssessment {
   board: string;
   ref: string;

@@ -118,3 +118,44 @@ describe('the adiabatic check with its length-free parts kept judges as the plai
     }
   });
 });
+
+describe('a check that passes at no length is not walked over every length', () => {
+  /** The adiabatic check on a context built afresh at each length of a fine grid from 0.5 m to 5 km (steps of 1 %). */
+  function passesSomewhere(fields: Record<string, string>, supply: Record<string, unknown>): boolean {
+    for (let l = 0.5; l <= 5000; l *= 1.01) {
+      if (adiabatic(context({ ...fields, length_m: String(l) }, {}, supply)).status === 'pass') return true;
+    }
+    return adiabatic(context({ ...fields, length_m: '5000' }, {}, supply)).status === 'pass';
+  }
+  // IEC 60364-5-54, 543.1.2: the cpc must take the energy at the largest earth fault current as well
+  // as at the smallest; the largest, at the board, does not change with the run, and the design
+  // fault current U0 × Cmin / Zs falls as the run (and Zs) grows (Ohm's law), so where the part at
+  // the board does not pass, no length passes. Each case is checked against the plain check itself.
+  const CASES: [string, Record<string, string>, Record<string, unknown>, boolean][] = [
+    ['mcb:D 16 A on 4/2.5 mm², 6 kA at the board, no let-through known: attention at every length', { device: 'mcb:D', rating_a: '16', ib_a: '9', live_mm2: '4', cpc_mm2: '2.5' }, { ze_ohm: '0.2', pfc_ka: '6' }, true],
+    ['mcb:B 32 A on 2.5/1.5 mm², 1.5 kA, no let-through known: attention at every length', {}, { ze_ohm: '0.35', pfc_ka: '1.5' }, true],
+    ['gG 32 A, separate 1 mm² cpc, the maker\'s let-through above k²S²: fails at every length', { device: 'fuse:gG', ib_a: '25', live_mm2: '6', cpc_mm2: '1', cpc_in_cable: 'no', let_through_a2s: '90000' }, { ze_ohm: '0.35', pfc_ka: '1.5' }, true],
+    ['mcb:B 16 A with the maker\'s let-through within k²S²: passes over a range of lengths', { device: 'mcb:B', rating_a: '16', ib_a: '10', let_through_a2s: '15000' }, { ze_ohm: '0.25', pfc_ka: '3' }, false],
+    ['rcbo:B 20 A on TT with a 30 mA RCD: the RCD breaks fast enough at the board\'s fault current', { device: 'rcbo:B', rating_a: '20', ib_a: '14', rcd_ma: '30', rcd_type: 'A' }, { earthing: 'TT', ze_ohm: '21' }, false],
+  ];
+  for (const [what, fields, supply, nowhere] of CASES) {
+    it(what, () => {
+      const ctx = context(fields, {}, supply);
+      const kept = new TrialContext(ctx);
+      const prepared = kept.check(adiabatic);
+      expect(prepared.passesAtNoLength?.(kept.at(0.5)), 'the check\'s own answer').toBe(nowhere);
+      expect(passesSomewhere(fields, supply), 'the plain check on a 1 % grid').toBe(!nowhere);
+      if (nowhere) {
+        // the longest run and its line are what the walk over every length gave, from two lengths tried
+        let tried = 0;
+        const counting = new (class extends TrialContext {
+          override at(lengthM: number) { tried += 1; return super.at(lengthM); }
+        })(ctx);
+        const t = new Trials(counting);
+        expect(longestRun(t, 20, [adiabatic])).toEqual({ length_m: null, beyond: false, limited_by: [] });
+        expect(runWords(longestRun(t, 20, [adiabatic]), t, 20, [adiabatic])).toMatch(/^none: the adiabatic check passes at no length from 0\.5 m to 5 km \((attention|fail) at 20 m\)$/);
+        expect(tried).toBe(2); // 0.5 m, for the fault current there, and 20 m, for the status the line gives
+      }
+    });
+  }
+});

@@ -6,7 +6,7 @@
 // declared energy limiting class. A bound within k²S² passes; the maker's figure above it fails;
 // a class limit above it, or no figure at all, is `attention` — never a pass on an assumption, nor
 // a fail on an energy the device cannot let through. The equation holds for disconnection within 5 s.
-import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
+import type { Check, CheckResult, CircuitContext, LengthCheck, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { ADIABATIC_LIMIT_S, kFor, type KFactor } from '../design/k-factor.js';
 import { letThrough, type Energy, type LetThroughInputs } from '../design/let-through.js';
@@ -118,8 +118,21 @@ export const adiabatic: Check = (ctx) => judged(ctx, () => lengthFree(ctx));
  * The adiabatic check for one circuit at any length (`base`: the circuit at one of them): its
  * length-free parts worked once. For trials in numbers only (../trial-context.ts): a part kept
  * from one trial keeps that trial's words.
+ *
+ * It passes at no length where the part judged at the board's largest earth fault current does
+ * not pass and that current is above the design fault current at the shortest length: the design
+ * fault current If = U0 × Cmin / Zs only falls as the run grows (R1+R2, and Zs with it, grow with
+ * the length), so that part is judged at every length, and the check is never better than it.
  */
-export function adiabaticAtLengths(base: CircuitContext): Check {
+export function adiabaticAtLengths(base: CircuitContext): LengthCheck {
   let free: LengthFree | undefined;
-  return (ctx) => judged(ctx, () => (free ??= lengthFree(base)));
+  const kept = () => (free ??= lengthFree(base));
+  const check: LengthCheck = (ctx) => judged(ctx, kept);
+  check.passesAtNoLength = (shortest) => {
+    const { fault } = shortest;
+    if (!fault.known) return false;
+    const { max, atMax } = kept();
+    return max !== null && max.amps > fault.current_a && atMax(shortest).status !== 'pass';
+  };
+  return check;
 }

@@ -41,6 +41,8 @@ export class Trials {
   private readonly seen = new Map<number, { ctx: CircuitContext; results: Map<Check, CheckResult> }>();
   /** the check that failed at the last length tried: asked first at the next, where it usually fails again */
   private lastFailed: Check | null = null;
+  /** each check asked whether it passes at no length, and its answer */
+  private readonly nowhere = new Map<Check, boolean>();
 
   constructor(private readonly circuit: TrialContext) {}
 
@@ -67,6 +69,23 @@ export class Trials {
       t.results.set(check, r);
     }
     return r;
+  }
+
+  /**
+   * Whether one of the checks passes at no length from 0.5 m to 5 km, as it says itself from a
+   * part the length does not change (see LengthCheck): then there is no need to walk the lengths
+   * to find that none passes.
+   */
+  passesNowhere(checks: readonly Check[]): boolean {
+    return checks.some((check) => {
+      let answer = this.nowhere.get(check);
+      if (answer === undefined) {
+        const prepared = this.circuit.check(check);
+        answer = prepared.passesAtNoLength !== undefined && numbersOnly(() => prepared.passesAtNoLength!(this.at(FROM_M)));
+        this.nowhere.set(check, answer);
+      }
+      return answer;
+    });
   }
 
   /**
@@ -109,13 +128,18 @@ export function boardShare(ctx: CircuitContext, r: CheckResult): string {
  */
 export function whyNone(trials: Trials, ownLengthM: number, checks: readonly Check[] = LENGTH_CHECKS): string {
   const own = trials.at(ownLengthM);
-  // whether a check alone passes somewhere needs only the bracket; its length, the bisection too,
-  // and that length is printed only where every check passes somewhere
-  const alone = checks.map((c) => ({ check: c, result: trials.judge(c, ownLengthM), found: bracketOf(trials, ownLengthM, [c], PASSES) }));
+  // whether a check alone passes somewhere needs no more than its own length, where it passes
+  // there, or else the search for a bracket; its length, the bracket and the bisection, and that
+  // length is printed only where every check passes somewhere
+  const alone = checks.map((c) => {
+    const result = trials.judge(c, ownLengthM);
+    const found = PASSES(result.status) ? undefined : bracketOf(trials, ownLengthM, [c], PASSES);
+    return { check: c, result, found };
+  });
   const never = alone.filter((a) => a.found === null);
   if (never.length === 0) {
     const each = alone.map((a) => {
-      const run = runWithin(trials, a.found, [a.check], PASSES);
+      const run = runWithin(trials, a.found ?? bracketOf(trials, ownLengthM, [a.check], PASSES), [a.check], PASSES);
       return `${nameOf(a.result.id)} alone up to ${run.beyond ? 'beyond 5 km' : metres(run.length_m!)}`;
     });
     return `no one length meets them all (${each.join('; ')})`;
@@ -143,6 +167,8 @@ export const PASSES: Meets = (s) => s === 'pass';
 type Bracket = [number, number] | 'beyond' | null;
 
 function bracketOf(trials: Trials, ownLengthM: number, checks: readonly Check[], meets: Meets): Bracket {
+  // a check that passes nowhere is met nowhere where only a pass will do
+  if (meets === PASSES && trials.passesNowhere(checks)) return null;
   const passes = (l: number) => trials.meetsAll(checks, l, meets);
   const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
   if (passes(own)) {
