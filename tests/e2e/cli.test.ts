@@ -1,6 +1,7 @@
 // The command line as people expect it: --help for every command, --version, "did you mean",
 // plain messages for a missing folder. Usage errors exit 2.
 import { describe, expect, it } from 'vitest';
+import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { packsmith, ROOT } from '../helpers/cli.js';
 
@@ -56,4 +57,19 @@ describe('packsmith command line', () => {
     expect(r.code).toBe(2);
     expect(r.stderr).toContain("missing required argument 'job-folder'");
   });
+
+  it('stops quietly when its reader stops early (check … | head), keeping the command\'s exit code', async () => {
+    // more JSON than a pipe holds (some 320 kB), so the reader closes it with much still to write
+    const args = [`${ROOT}dist/cli.js`, 'check', 'tests/fixtures/long-board', '--json'];
+    const whole = packsmith(args.slice(1));
+    expect(whole.stdout.length).toBeGreaterThan(200_000);
+    const child = spawn(process.execPath, args, { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stderr = '';
+    child.stderr.on('data', (d: Buffer) => { stderr += d.toString(); });
+    child.stdout.once('data', () => child.stdout.destroy());
+    const code = await new Promise<number | null>((resolve) => child.on('close', resolve));
+    expect(stderr).toBe(whole.stderr);
+    expect(code).toBe(whole.code);
+  });
 });
+
