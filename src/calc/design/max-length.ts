@@ -4,7 +4,9 @@
 // from the circuit's own length, steps of 50 % up (while it passes) or down (until it passes)
 // bracket the boundary, and bisection finds it. Where the steps down find no passing length (a
 // short run can fail the adiabatic check on a large fault current), a grid from 0.5 m to 5 km is
-// walked up from the first passing length instead. Where no length passes, null, and `whyNone`
+// walked up from the first passing length instead. A check that itself says it passes at no
+// length (the adiabatic check, where its part at the board's largest fault current, which no
+// length changes, does not pass) is not walked. Where no length passes, null, and `whyNone`
 // says which check no length meets and at what status (never a bare "none").
 import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
