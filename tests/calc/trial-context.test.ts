@@ -54,6 +54,17 @@ describe('the longest run where one check sets it, against the physics', () => {
     expect(longestRun(trials(ctx), 70, [voltageDropCheck]).length_m).toBe(tenths(L));
   });
 
+  it('design Zs and the adiabatic check turn at the same length on a circuit-breaker, and the run names both, from wherever the search starts', () => {
+    // Zs = max Zs exactly where If = U0 × Cmin / Zs falls to Ia = 5 × 32 A (IEC 60364-4-41, 411.4.4;
+    // type B instantaneous trip within 0.1 s at 5 In, IEC 60898-1); below Ia the breaker may take
+    // seconds, and I²t then exceeds k²S² of the 1.5 mm² cpc (IEC 60364-5-54, 543.1.2)
+    const L = (((230 * 0.95) / 160 - 0.35) * 1000) / (hot('2.5') + hot('1.5')); // 43.5 m
+    for (const own of [5, 12, 20, 33, 47, 80]) {
+      const ctx = context({ ib_a: '6', let_through_a2s: '15000', length_m: String(own) }, {}, { ze_ohm: '0.35', pfc_ka: '1.5' });
+      expect(longestRun(trials(ctx), own, LENGTH_CHECKS), `from ${own} m`).toEqual({ length_m: tenths(L), beyond: false, limited_by: ['zs-design', 'adiabatic'] });
+    }
+  });
+
   it('both together: the shorter of the two, and the line names the check that sets it', () => {
     const byZs = (((230 * 0.95) / 160 - 0.35) * 1000) / (hot('2.5') + hot('1.5'));
     const byVd = (0.05 * 230 * 1000) / (2 * hot('2.5') * 20);

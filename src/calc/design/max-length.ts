@@ -28,7 +28,7 @@ export interface LongestRun {
   length_m: number | null;
   /** true where even 5 km passes */
   beyond: boolean;
-  /** the checks that stop passing just beyond the length found (empty when null or beyond) */
+  /** the checks that no longer pass 0.1 m beyond the length found (empty when null or beyond) */
   limited_by: string[];
 }
 
@@ -203,7 +203,11 @@ function runWithin(trials: Trials, found: Bracket, checks: readonly Check[], mee
     const m = (a + b) / 2;
     if (trials.meetsAll(checks, m, meets)) a = m; else b = m;
   }
-  const limited = checks.map((c) => trials.judge(c, b)).filter((r) => !meets(r.status)).map((r) => r.id);
+  // every check that turns within the 0.1 m past the run, not only the one the search met there:
+  // two checks can turn at the same length (for a circuit-breaker, design Zs and the adiabatic
+  // check both turn where the fault current falls to the one that trips it at once)
+  const next = Math.min(TO_M, (Math.floor(a * 10) + 1) / 10);
+  const limited = checks.filter((c) => !meets(trials.judge(c, b).status) || !meets(trials.judge(c, next).status)).map((c) => trials.judge(c, b).id);
   return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
 }
 
