@@ -11,7 +11,7 @@ import { designFault, faultInputs, type DesignFault } from './design/fault.js';
 import { TrialContext } from './trial-context.js';
 import { kFor } from './design/k-factor.js';
 import { breakingLevel } from './fault-level.js';
-import { stages, traced } from './history.js';
+import { rowsByCircuit, stages, traced } from './history.js';
 import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
 import { circuitDeparture, ruleDepartures, strictRules, type Departure } from './departures.js';
 import { boardAsSeen, designSource, siteOf, type CircuitSite } from './tree/site.js';
@@ -115,6 +115,7 @@ export function assess(project: Project): Assessment {
   const departures = ruleDepartures(rules, project.circuits);
   const sources = carry(file.boards, project.circuits, file.supply, rules.u0_v);
   const fed = fedBoards(file.boards);
+  const rowsOf = rowsByCircuit(project.rows);
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
     const board = file.boards.find((b) => b.id === circuit.board)!;
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
@@ -132,7 +133,7 @@ export function assess(project: Project): Assessment {
     ctx.derived.max_length_m = run.length_m;
     const runBasis = runWords(run, trials, circuit.length_m)
       + (site.feeds ? ` (its own checks only: a longer run also raises Zdb and the drop at ${site.feeds.board}, whose circuits are not judged again here)` : '');
-    const asOf = stages(ctx, project.rows);
+    const asOf = stages(ctx, rowsOf.get(circuitKey(circuit.board, circuit.ref)) ?? []);
     const query = site.feeds ? boardQuery(site.feeds.source, site.source, rules) : null;
     return {
       board: circuit.board,

@@ -5,7 +5,8 @@ import { fileURLToPath } from 'node:url';
 import { readJob } from '../../src/load/job.js';
 import { validate } from '../../src/model/validate.js';
 import { assess } from '../../src/calc/assess.js';
-import { traced } from '../../src/calc/history.js';
+import { rowsByCircuit, traced } from '../../src/calc/history.js';
+import { circuitKey } from '../../src/model/readings.js';
 import { zsMeasured } from '../../src/calc/checks/zs-measured.js';
 import { insulation } from '../../src/calc/checks/insulation.js';
 import { rcdTt } from '../../src/calc/checks/rcd-tt.js';
@@ -84,6 +85,18 @@ describe('re-tests in a job folder (tests/fixtures/tt-instrument-job)', () => {
       { date: '2026-11-13', value: 999, over_range: true, status: 'pass' },
       { date: '2026-11-27', value: 0.6, status: 'fail' },
     ]);
+  });
+  it("works each circuit's history from its own rows, grouped once and kept in session order", () => {
+    const rows = v.project.rows;
+    const by = rowsByCircuit(rows);
+    // the fixture interleaves circuits within a session and sessions within a circuit
+    expect(new Set(rows.map((r) => r.date)).size).toBeGreaterThan(1);
+    expect([...by.values()].some((own) => own.length > 1)).toBe(true);
+    for (const c of v.project.circuits) {
+      const key = circuitKey(c.board, c.ref);
+      expect(by.get(key) ?? []).toEqual(rows.filter((r) => circuitKey(r.values.board, r.values.ref) === key));
+    }
+    expect([...by.values()].reduce((n, own) => n + own.length, 0)).toBe(rows.length);
   });
   it('counts every check in the summary, and never passes what is not verified', () => {
     const total = a.circuits.reduce((n, c) => n + c.checks.length, 0);
