@@ -9,15 +9,34 @@ import type { LocatedError, RawCell, RawTable } from './raw.js';
 type Parsed = { record: string[]; info: { lines: number } };
 
 const LINE_BREAK = /\r\n|\r|\n/g;
+const QUOTE = 0x22;
+const LF = 0x0a;
+const CR = 0x0d;
 const breaksIn = (s: string): number => s.match(LINE_BREAK)?.length ?? 0;
 
 /** The separator of a file: a comma, unless its header line has none but has semicolons or tabs. */
 export function separatorOf(text: string): ',' | ';' | '\t' {
-  const head = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/).find((l) => l.trim() !== '') ?? '';
+  const head = firstLine(text);
   if (head.includes(',')) return ',';
   if (head.includes(';')) return ';';
   if (head.includes('\t')) return '\t';
   return ',';
+}
+
+/**
+ * The first line holding more than white space (a leading byte-order mark left out): the line
+ * text.split(/\r\n|\r|\n/) would find first, without splitting the whole file. Each "\r" and
+ * "\n" ends a line here, so "\r\n" leaves an empty line between, which is skipped as blank.
+ */
+function firstLine(text: string): string {
+  for (let start = text.charCodeAt(0) === 0xfeff ? 1 : 0; start <= text.length;) {
+    let end = start;
+    while (end < text.length && text.charCodeAt(end) !== LF && text.charCodeAt(end) !== CR) end += 1;
+    const line = text.slice(start, end);
+    if (line.trim() !== '') return line;
+    start = end + 1;
+  }
+  return '';
 }
 
 /** Where a quote that is never closed was opened (RFC 4180: a quote opens only at a cell's start). */
@@ -59,13 +78,96 @@ export function parseRecords(text: string, sep: string): Parsed[] {
   return [head, ...(parse(text, { ...CSV_OPTIONS, delimiter: sep, from_line: head.info.lines + 1 }) as unknown as Parsed[])];
 }
 
+/**
+ * The records of a plain file, read without csv-parse: what csv-parse gives (the records and the
+ * line each ends on) for a file it reads without any error and where no cell spans lines. csv-parse
+ * works on the file's UTF-8 bytes and, on its first line, builds three buffers for every byte while
+ * it looks for the line ending; this reader takes one pass over the text. It reads only a file:
+ *   - of well-formed UTF-16 (csv-parse would see a lone surrogate as U+FFFD) without NUL;
+ *   - whose line endings are all "\n", or all "\r\n" (no lone "\r"): csv-parse ends records at the
+ *     first kind it meets and counts a line at every "\r" and "\n";
+ *   - whose every quote opens a cell (at its start), is closed on the same line by a quote followed
+ *     by the separator, the line's end or the file's end, and doubles a quote inside.
+ * Anything else (where csv-parse would refuse the text, or a cell runs over lines) is null: the
+ * caller parses it with csv-parse. A leading byte-order mark is skipped, empty lines are skipped
+ * (a line holding only "" is a record of one empty cell), as CSV_OPTIONS say.
+ */
+export function plainRecords(text: string, sep: string): Parsed[] | null {
+  if (text.includes('\0') || !(text as string & { isWellFormed(): boolean }).isWellFormed()) return null;
+  const crlf = text.includes('\r');
+  if (crlf && (text.split('\r').length !== text.split('\r\n').length || text.split('\n').length !== text.split('\r\n').length)) return null;
+  const s = sep.charCodeAt(0);
+  const n = text.length;
+  const records: Parsed[] = [];
+  let i = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let line = 1;
+  let record: string[] = [];
+  /** the next "\n" at or after the quoted cell being read (-1: none), found once per line, not per cell */
+  let lf = -2;
+  for (;;) {
+    // at the start of a cell
+    let cell: string;
+    let quoted = false;
+    if (i < n && text.charCodeAt(i) === QUOTE) {
+      quoted = true;
+      let from = i + 1;
+      cell = '';
+      for (;;) {
+        const q = text.indexOf('"', from);
+        if (q < 0) return null; // never closed
+        if (lf !== -1 && lf < from) lf = text.indexOf('\n', from);
+        // runs over lines (a "\r" stands only just before a "\n", so the "\n" tells for it too)
+        if (lf !== -1 && lf < q) return null;
+        if (text.charCodeAt(q + 1) === QUOTE) {
+          cell += text.slice(from, q + 1);
+          from = q + 2;
+          continue;
+        }
+        cell += text.slice(from, q);
+        i = q + 1;
+        break;
+      }
+      const c = i < n ? text.charCodeAt(i) : -1;
+      if (c !== -1 && c !== s && c !== LF && c !== CR) return null; // a closing quote followed by text
+    } else {
+      const start = i;
+      while (i < n) {
+        const c = text.charCodeAt(i);
+        if (c === s || c === LF || c === CR) break;
+        if (c === QUOTE) return null; // a quote inside a cell
+        i += 1;
+      }
+      cell = text.slice(start, i);
+    }
+    const c = i < n ? text.charCodeAt(i) : -1;
+    if (c === s) {
+      record.push(cell);
+      i += 1;
+      continue;
+    }
+    // the end of a line (or of the file): an empty line is skipped
+    if (quoted || record.length > 0 || cell !== '') {
+      record.push(cell);
+      records.push({ record, info: { lines: line } });
+      record = [];
+    }
+    if (c === -1) break;
+    i += c === CR ? 2 : 1;
+    line += 1;
+    if (i >= n) break;
+  }
+  return records;
+}
+
 export function readCsv(file: string, text: string): { table: RawTable; errors: LocatedError[] } {
   const errors: LocatedError[] = [];
   const empty = { file, header: [], rows: [] };
   const sep = separatorOf(text);
+  // a plain file is read without csv-parse, and none of its cells spans lines
+  const plain = plainRecords(text, sep);
   let records: Parsed[];
   try {
-    records = parseRecords(text, sep);
+    records = plain ?? parseRecords(text, sep);
   } catch (err) {
     const e = err as { code?: string; lines?: number; message?: string };
     if (e.code === 'CSV_QUOTE_NOT_CLOSED') {
@@ -76,7 +178,7 @@ export function readCsv(file: string, text: string): { table: RawTable; errors: 
     }
     return { table: empty, errors };
   }
-  const lineOf = (r: Parsed): number => r.info.lines - r.record.reduce((n, c) => n + breaksIn(c), 0);
+  const lineOf = (r: Parsed): number => (plain ? r.info.lines : r.info.lines - r.record.reduce((n, c) => n + breaksIn(c), 0));
   const [head, ...body] = records;
   if (!head) {
     errors.push({ file, row: 1, column: 1, message: 'the file is empty; expected a header row naming the columns' });
@@ -84,10 +186,11 @@ export function readCsv(file: string, text: string): { table: RawTable; errors: 
   }
   const header: RawCell[] = head.record.map((name, i) => ({ text: name.trim(), column: i + 1 }));
   const seen = new Map<string, number>();
+  const headLine = lineOf(head); // once: a header of thousands of repeated names made this quadratic
   for (const h of header) {
     const first = seen.get(h.text);
     if (first !== undefined) {
-      errors.push({ file, row: lineOf(head), column: h.column, message: `column "${h.text}" appears twice (also column ${first})` });
+      errors.push({ file, row: headLine, column: h.column, message: `column "${h.text}" appears twice (also column ${first})` });
     } else seen.set(h.text, h.column);
   }
   const rows = [];
@@ -95,7 +198,7 @@ export function readCsv(file: string, text: string): { table: RawTable; errors: 
     const { record } = rec;
     if (!record.some((c) => c.trim() !== '')) continue;
     const line = lineOf(rec);
-    const spans = record.findIndex((c) => breaksIn(c) > 0);
+    const spans = plain ? -1 : record.findIndex((c) => breaksIn(c) > 0);
     if (spans >= 0) {
       errors.push({
         file, row: line, column: spans + 1,
@@ -114,10 +217,11 @@ export function readCsv(file: string, text: string): { table: RawTable; errors: 
       continue;
     }
     const cells: Record<string, RawCell> = {};
-    header.forEach((h, i) => {
+    for (let i = 0; i < header.length; i++) {
+      const h = header[i]!;
       const text = (record[i] ?? '').trim();
       if (text !== '' && h.text !== '') cells[h.text] = { text, column: h.column };
-    });
+    }
     rows.push({ row: line, cells });
   }
   return { table: { file, header, rows }, errors };
