@@ -3,7 +3,7 @@
 // number such as 1e-3, 0x10 or .inf is an error at its place, not a value nobody wrote plainly.
 // Aliases are resolved under a cap, and every failure (an unknown alias, too many aliases) is
 // located like any other error.
-import { LineCounter, parseDocument, isMap, isSeq, isNode, isScalar, isAlias, visit, type Node } from 'yaml';
+import { LineCounter, parseDocument, isMap, isSeq, isNode, isPair, isScalar, isAlias, type Node } from 'yaml';
 import type { LocatedError, RawYaml, SourcePosition } from './raw.js';
 import { PLAIN_NUMBER } from './number.js';
 
@@ -17,38 +17,42 @@ export function readYaml(file: string, text: string): { doc: RawYaml | null; err
     const p = lineCounter.linePos(offset);
     return { file, row: p.line, column: p.col };
   };
-  const tabs = tabIndented(text);
-  if (doc.errors.length > 0 && tabs.length > 0) {
-    // one cause, one message: the YAML parser would report every tab-indented line and what follows
-    const lines = tabs.length > 5 ? `${tabs.slice(0, 5).join(', ')} and ${tabs.length - 5} more` : tabs.join(', ');
-    return { doc: null, errors: [{ file, row: tabs[0]!, column: 1, message: `indented with a tab (line${tabs.length > 1 ? 's' : ''} ${lines}); YAML is indented with spaces: replace each tab with two spaces, or set your editor to insert spaces` }] };
+  if (doc.errors.length > 0) {
+    const tabs = tabIndented(text);
+    if (tabs.length > 0) {
+      // one cause, one message: the YAML parser would report every tab-indented line and what follows
+      const lines = tabs.length > 5 ? `${tabs.slice(0, 5).join(', ')} and ${tabs.length - 5} more` : tabs.join(', ');
+      return { doc: null, errors: [{ file, row: tabs[0]!, column: 1, message: `indented with a tab (line${tabs.length > 1 ? 's' : ''} ${lines}); YAML is indented with spaces: replace each tab with two spaces, or set your editor to insert spaces` }] };
+    }
   }
   const errors: LocatedError[] = doc.errors.map((e) => ({ ...at(e.pos[0]), message: `cannot read this YAML: ${e.message.split('\n')[0]}` }));
   if (errors.length > 0) return { doc: null, errors };
 
+  // One walk over the nodes, in the order yaml's visit() takes them (a pair's key, then its value):
+  // the anchors set anywhere, the aliases in order, and every number not written plainly.
   const anchors = new Set<string>();
-  let firstAlias: { offset: number; name: string } | null = null;
-  let unknownAlias: { offset: number; name: string } | null = null;
-  visit(doc, {
-    Node(_, node) {
-      if (isNode(node) && !isAlias(node) && node.anchor) anchors.add(node.anchor);
-    },
-  });
-  visit(doc, {
-    Alias(_, node) {
-      const a = { offset: node.range?.[0] ?? 0, name: node.source };
-      firstAlias ??= a;
-      if (!anchors.has(node.source)) unknownAlias ??= a;
-    },
-    Scalar(_, node) {
-      if (!isScalar(node) || !node.range) return;
+  const aliases: { offset: number; name: string }[] = [];
+  const walk = (node: unknown): void => {
+    if (isAlias(node)) {
+      aliases.push({ offset: node.range?.[0] ?? 0, name: node.source });
+    } else if (isScalar(node)) {
+      if (node.anchor) anchors.add(node.anchor);
+      if (!node.range) return;
       const source = text.slice(node.range[0], node.range[1]).trim();
       if ((typeof node.value === 'number' || /^[-+]?\.(inf|nan)$/i.test(source)) && !PLAIN_NUMBER.test(source)) {
         errors.push({ ...at(node.range[0]), message: `found "${source}"; write a number as a plain decimal (e.g. 0.28, 230, 0.0069): no exponent, hexadecimal, infinity or leading "+"` });
       }
-    },
-  });
-  const alias = unknownAlias as { offset: number; name: string } | null;
+    } else if (isMap(node) || isSeq(node)) {
+      if (node.anchor) anchors.add(node.anchor);
+      for (const item of node.items) walk(item);
+    } else if (isPair(node)) {
+      walk(node.key);
+      walk(node.value);
+    }
+  };
+  walk(doc.contents);
+  const firstAlias = aliases[0] ?? null;
+  const alias = aliases.find((a) => !anchors.has(a.name));
   if (alias) errors.push({ ...at(alias.offset), message: `cannot read this YAML: the alias *${alias.name} names no anchor (&${alias.name}) set before it` });
   if (errors.length > 0) return { doc: null, errors };
 
@@ -56,8 +60,7 @@ export function readYaml(file: string, text: string): { doc: RawYaml | null; err
   try {
     data = doc.toJS({ maxAliasCount: MAX_ALIASES });
   } catch (e) {
-    const first = firstAlias as { offset: number; name: string } | null;
-    return { doc: null, errors: [{ ...at(first?.offset ?? 0), message: `cannot read this YAML: ${(e as Error).message.split('\n')[0]} (aliases expand to too much; write the values out)` }] };
+    return { doc: null, errors: [{ ...at(firstAlias?.offset ?? 0), message: `cannot read this YAML: ${(e as Error).message.split('\n')[0]} (aliases expand to too much; write the values out)` }] };
   }
 
   const positionOf = (path: readonly PropertyKey[]): SourcePosition => {
