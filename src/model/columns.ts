@@ -35,14 +35,20 @@ export function mapColumns(
   const renamed = new Map<string, string>(); // header as written → packsmith column
   const given = new Map<string, RawCell>(); // packsmith column → the header that gives it
   const header: RawCell[] = [];
+  /** whether every column keeps its header: nothing renamed, ignored or given twice */
+  let asWritten = true;
   for (const h of table.header) {
     const mapped = mapping.get(norm(h.text));
-    if (mapped === IGNORE_COLUMN) continue;
+    if (mapped === IGNORE_COLUMN) {
+      asWritten = false;
+      continue;
+    }
     const field = mapped ?? h.text;
     if (mapped !== undefined || known.includes(h.text)) {
       const first = given.get(field);
       if (first) {
         errors.push({ file: table.file, row: 1, column: h.column, message: `column "${h.text}" gives ${field}, as column ${first.column} "${first.text}" does; one column per field` });
+        asWritten = false;
         continue;
       }
       given.set(field, h);
@@ -56,16 +62,36 @@ export function mapColumns(
         } else units[field] = unit;
       }
     }
+    if (field !== h.text) asWritten = false;
     renamed.set(h.text, field);
     header.push({ text: field, column: h.column });
   }
   // cells of ignored columns and of a second column giving the same field are left out
-  const rows = table.rows.map((r) => ({
-    row: r.row,
-    cells: Object.fromEntries(Object.entries(r.cells).flatMap(([name, cell]) => {
-      const to = renamed.get(name);
-      return to === undefined ? [] : [[to, cell] as const];
-    })),
-  }));
+  const rows = table.rows.map((r) => (asWritten && keptAsIs(r.cells, renamed) ? r : { row: r.row, cells: renamedCells(r.cells, renamed) }));
   return { table: { file: table.file, header, rows }, units, errors };
+}
+
+/**
+ * Whether a row's cells are what renaming them would make, where every column keeps its header:
+ * a plain object (a header "__proto__" sets the prototype of the cells, which a copy leaves behind)
+ * whose every cell is under a header of the table. Such a row is used as it is (shared, not
+ * copied: validation only reads it).
+ */
+function keptAsIs(cells: Record<string, RawCell>, renamed: ReadonlyMap<string, string>): boolean {
+  if (Object.getPrototypeOf(cells) !== Object.prototype) return false;
+  for (const name of Object.keys(cells)) if (!renamed.has(name)) return false;
+  return true;
+}
+
+/** A row's cells under their new names (in the order of the row's own keys), those with none left out. */
+function renamedCells(cells: Record<string, RawCell>, renamed: ReadonlyMap<string, string>): Record<string, RawCell> {
+  const out: Record<string, RawCell> = {};
+  for (const name of Object.keys(cells)) {
+    const to = renamed.get(name);
+    if (to === undefined) continue;
+    // a key "__proto__" is made an own field, as Object.fromEntries makes it, never the prototype
+    if (to === '__proto__') Object.defineProperty(out, to, { value: cells[name], enumerable: true, writable: true, configurable: true });
+    else out[to] = cells[name]!;
+  }
+  return out;
 }
