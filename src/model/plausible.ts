@@ -7,12 +7,14 @@ import { fmt } from './units.js';
 export function implausible(field: string, value: number, written: string): string | null {
   const r = PLAUSIBLE[field];
   if (!r) return null;
-  const range = `${r.above !== undefined ? `above ${fmt(r.above)}` : `from ${fmt(r.atLeast ?? 0)}`} to ${fmt(r.atMost)} ${r.unit}`;
   const out = !Number.isFinite(value)
     || (r.above !== undefined && !(value > r.above))
     || (r.atLeast !== undefined && !(value >= r.atLeast))
     || value > r.atMost;
-  if (out) return `found "${written}", which is not a plausible ${field} (${range}): ${r.why}`;
+  if (out) {
+    const range = `${r.above !== undefined ? `above ${fmt(r.above)}` : `from ${fmt(r.atLeast ?? 0)}`} to ${fmt(r.atMost)} ${r.unit}`;
+    return `found "${written}", which is not a plausible ${field} (${range}): ${r.why}`;
+  }
   if (field === 'ir_test_v') {
     const fits = INSULATION_TEST_NOMINAL_V.some((v) => value >= v && value <= v * INSULATION_TEST_MAX_FACTOR);
     if (!fits) return `found "${written}", which is not an insulation test voltage: ${r.why}`;

@@ -88,8 +88,8 @@ export type CellResult = { ok: true; reading: Reading } | { ok: false; message: 
 
 // The number grammar (load/number.ts) is strict; this looser pattern only finds what was meant
 // by a number it refuses (1e-3, .690, 6., +5), to say what to write instead.
-const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
-const DECIMAL_COMMA = /^[+-]?\d+,\d+\s*\S*$/;
+export const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
+export const DECIMAL_COMMA = /^[+-]?\d+,\d+\s*\S*$/;
 
 /**
  * Parse one cell of the given quantity. An empty cell is the caller's business (not given).
@@ -106,11 +106,14 @@ export function parseCell(text: string, quantity: Quantity, columnUnit = ''): Ce
   }
   const bound = raw.startsWith('>');
   const body = bound ? raw.slice(1).trim() : raw;
-  if (DECIMAL_COMMA.test(body)) {
+  // A plain number, the usual cell, is its own number part: NUMBER would give [body, body, ''] and
+  // DECIMAL_COMMA nothing (tests/model/units.test.ts holds them to that), so neither is run.
+  const plain = PLAIN_NUMBER.test(body);
+  if (!plain && DECIMAL_COMMA.test(body)) {
     const fixed = body.replace(',', '.');
     return { ok: false, message: `found "${raw}" with a decimal comma; write a decimal point, e.g. "${bound ? '>' : ''}${fixed}"` };
   }
-  const m = NUMBER.exec(body);
+  const m = plain ? [body, body, ''] : NUMBER.exec(body);
   if (!m) {
     return {
       ok: false,
@@ -118,14 +121,15 @@ export function parseCell(text: string, quantity: Quantity, columnUnit = ''): Ce
     };
   }
   let value = Number(m[1]);
-  if (!PLAIN_NUMBER.test(m[1]!)) {
-    const plain = Number.isFinite(value) && value !== 0 && Math.abs(value) < 1e12 && Math.abs(value) > 1e-9 ? plainText(value) : null;
-    return { ok: false, message: `found "${raw}"; write the number as a plain decimal${plain !== null ? `, e.g. "${bound ? '>' : ''}${plain}${m[2] ? ` ${m[2]}` : ''}"` : ''} (no exponent, no point without digits on both sides, no "+")` };
+  if (!plain && !PLAIN_NUMBER.test(m[1]!)) {
+    const instead = Number.isFinite(value) && value !== 0 && Math.abs(value) < 1e12 && Math.abs(value) > 1e-9 ? plainText(value) : null;
+    return { ok: false, message: `found "${raw}"; write the number as a plain decimal${instead !== null ? `, e.g. "${bound ? '>' : ''}${instead}${m[2] ? ` ${m[2]}` : ''}"` : ''} (no exponent, no point without digits on both sides, no "+")` };
   }
   if (!Number.isFinite(value)) return { ok: false, message: `found "${raw}"; the number is too large for any reading` };
   const negative = m[1]!.startsWith('-');
-  const written = (m[2] ?? '').replace(/\s+/g, '');
-  const unit = written === '' ? columnUnit.replace(/\s+/g, '') : written;
+  const after = m[2] ?? '';
+  const written = after === '' ? '' : after.replace(/\s+/g, '');
+  const unit = written !== '' ? written : columnUnit === '' ? '' : columnUnit.replace(/\s+/g, '');
   if (unit !== '') {
     if (quantity === 'millisecond' && (unit === 's' || unit === 'sec')) {
       return { ok: false, message: `found "${raw}", a time in seconds; this column is in milliseconds (write ${fmt(value * 1000)})` };

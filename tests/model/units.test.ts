@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { parseCell } from '../../src/model/units.js';
+import fc from 'fast-check';
+import { DECIMAL_COMMA, NUMBER, parseCell } from '../../src/model/units.js';
+import { PLAIN_NUMBER } from '../../src/load/number.js';
 
 const value = (text: string, q: Parameters<typeof parseCell>[1]) => {
   const r = parseCell(text, q);
@@ -58,5 +60,21 @@ describe('cell values (CONTRACT.md value syntax)', () => {
   it('refuses words that are not values', () => {
     expect(problem('good', 'ohm')).toMatch(/expected a resistance in ohms/);
     expect(problem('1.5', 'count')).toMatch(/whole number/);
+  });
+});
+
+describe('a plain number read without the looser patterns', () => {
+  // parseCell takes a cell in the plain grammar as its own number part, without running NUMBER or
+  // DECIMAL_COMMA: exact only while NUMBER splits such a cell into itself and nothing after it and
+  // DECIMAL_COMMA refuses it. Should either pattern change, this fails.
+  const digits = fc.stringMatching(/^\d{1,25}$/);
+  const plain = fc.tuple(fc.boolean(), digits, fc.option(digits)).map(([minus, whole, frac]) => `${minus ? '-' : ''}${whole}${frac === null ? '' : `.${frac}`}`);
+  const near = fc.stringMatching(/^[-+.,0-9eE ]{1,12}$/); // awkward neighbours of the grammar
+  it('is split by NUMBER into itself and nothing, and is no decimal comma', () => {
+    fc.assert(fc.property(fc.oneof(plain, near), (text) => {
+      if (!PLAIN_NUMBER.test(text)) return;
+      expect([...(NUMBER.exec(text) ?? [])]).toEqual([text, text, '']);
+      expect(DECIMAL_COMMA.test(text)).toBe(false);
+    }), { numRuns: 5000 });
   });
 });
