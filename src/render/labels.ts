@@ -231,17 +231,29 @@ const FIELD_ID = /\b(?:(?:supply|rules|boards|client|site|installer|dates|signof
  * dropped, field ids replaced by their labels ("breaking_ka not given" → "breaking capacity of
  * the device not given").
  */
-function plainWordsOf(text: string): string {
-  const named = JOB_FILES.reduce((t, [file, words]) => t.replace(file, words), text.replace(INTERNAL_FILES, ''));
+export function plainWordsOf(text: string): string {
+  // each replacement needs its file's name in the text: skipped where it is not there
+  const internal = text.includes('REFERENCE.md') ? text.replace(INTERNAL_FILES, '') : text;
+  const named = internal.includes('project.yaml') || internal.includes('circuits.csv')
+    ? JOB_FILES.reduce((t, [file, words]) => t.replace(file, words), internal)
+    : internal;
   return named.replace(FIELD_ID, (id) => {
     const known = id.includes('.') ? JOB_LABELS[id] : (READING_LABELS[id] ?? CIRCUIT_LABELS[id] ?? DERIVED_LABELS[id]);
     return known ? lower(known.label) : id;
   });
 }
 
+/**
+ * What every text plainWordsOf can change holds: an underscore (a field id), a known prefix with its
+ * dot (a field of project.yaml) or a file name. Most basis lines hold none of them; they are given
+ * back as they are, without a pass of each replacement and without a cache lookup keyed by the long
+ * text (tests/render/labels.test.ts compares this with plainWordsOf).
+ */
+const MAY_CHANGE = /_|REFERENCE\.md|project\.yaml|circuits\.csv|(?:supply|rules|boards|client|site|installer|dates|signoff)\./;
+
 /** plainWords of the same basis line is asked for by the summary, the appendix and each render of a served job. */
 const plainWordsCache = boundedCache<string>(4096);
-export const plainWords = (text: string): string => plainWordsCache(text, () => plainWordsOf(text));
+export const plainWords = (text: string): string => (MAY_CHANGE.test(text) ? plainWordsCache(text, () => plainWordsOf(text)) : text);
 
 /** A phrase as a sentence of its own: its first letter a capital. */
 export const sentence = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { loadJob } from '../../src/job.js';
 import { CHECK_IDS } from '../../src/calc/types.js';
 import { CIRCUIT_COLUMNS, READING_COLUMNS } from '../../src/model/schema.js';
-import { CHECK_LABELS, CIRCUIT_LABELS, DERIVED_LABELS, READING_LABELS, checkLabel, jobFieldLabel, plainWords } from '../../src/render/labels.js';
+import { CHECK_LABELS, CIRCUIT_LABELS, DERIVED_LABELS, JOB_LABELS, READING_LABELS, checkLabel, jobFieldLabel, plainWords, plainWordsOf } from '../../src/render/labels.js';
 import { renderPack } from '../../src/render/pack.js';
 import { comparison } from '../../src/render/values.js';
 import { DERIVED_FIELDS } from '../../src/render/view.js';
@@ -47,6 +47,45 @@ describe('the labels table', () => {
     expect(plainWords('6 kA, the usual capacity of fuse:bs3036 (breaking_ka not given)')).toBe('6 kA, the usual capacity of fuse:bs3036 (breaking capacity of the device not given)');
     expect(plainWords('no measured Ze (supply.ze_ohm) or Zdb')).toBe('no measured Ze (Ze) or Zdb');
     expect(plainWords('BS 7671 Table 41.2 (REFERENCE.md): 230 V')).toBe('BS 7671 Table 41.2: 230 V');
+  });
+});
+
+describe('plain words without a pass of each replacement', () => {
+  // plainWords gives a text holding none of the names a replacement looks for back as it is: it
+  // must give what the full replacement gives, for any text.
+  const ids = [...Object.keys(READING_LABELS), ...Object.keys(CIRCUIT_LABELS), ...Object.keys(DERIVED_LABELS), ...Object.keys(JOB_LABELS)];
+  const pieces = [...ids, 'REFERENCE.md', '(REFERENCE.md)', '(see REFERENCE.md)', ' (from REFERENCE.md)', 'project.yaml', 'circuits.csv', 'set in project.yaml',
+    'in circuits.csv', 'circuits.csv gives', '_', 'x_', '_y', 'a_b', 'supply.', 'rules.', 'boards.', 'client.', 'site.', 'installer.', 'dates.', 'signoff.',
+    'Supply.ze', 'supplyx.ze', 'REFERENCE.MD', 'project.yml', 'circuits_csv', 'rules', 'supply', '.', ' ', '', 'é', 'Zs = 0.8 Ω ≤ 1.09 Ω', '(', ')', '\n', 'A2', 'ze'];
+  // mulberry32: the same texts on every run
+  let seed = 17;
+  const next = (n: number) => {
+    seed = (seed + 0x6d2b79f5) | 0;
+    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) % n;
+  };
+  const texts: string[] = [];
+  for (let i = 0; i < 20000; i++) {
+    let t = '';
+    for (let n = next(6); n >= 0; n--) t += pieces[next(pieces.length)]! + (next(3) === 0 ? '' : ' ');
+    texts.push(t);
+  }
+  for (const { assessment } of loaded) {
+    for (const c of assessment.circuits) for (const k of c.checks) texts.push(k.basis, k.remedy ?? '');
+    for (const d of assessment.departures) texts.push(d.basis);
+  }
+
+  it('gives what the full replacement gives, for basis lines and for texts made of the names it replaces', () => {
+    let changed = 0;
+    for (const t of texts) {
+      const full = plainWordsOf(t);
+      if (full !== t) changed++;
+      expect(plainWords(t), JSON.stringify(t)).toBe(full);
+    }
+    // the texts exercise both paths
+    expect(changed).toBeGreaterThan(5000);
+    expect(texts.length - changed).toBeGreaterThan(5000);
   });
 });
 
