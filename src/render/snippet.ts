@@ -102,11 +102,22 @@ function bandArea(fast: [number, number][], slow: [number, number][]): string {
   return toXY([...fast, ...(fl < I_MAX ? [[I_MAX, tl] as [number, number]] : []), ...[...slow].reverse()]);
 }
 
-/** The band's shapes and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
-const bands = boundedCache<{ plot: readonly string[]; desc: string }>(128);
+/**
+ * Lines as they follow an earlier line of the snippet, each after its line break: the snippet is
+ * these blocks put together (what joining all its lines with "\n" gives), so the grid and a
+ * device's band are written once and copied only when the page is.
+ */
+const afterBreaks = (lines: readonly string[]): string => {
+  let out = '';
+  for (const line of lines) out += `\n${line}`;
+  return out;
+};
+
+/** The band's shapes (lines after their breaks) and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
+const bands = boundedCache<{ plot: string; desc: string }>(128);
 const band = (device: Device) => bands(deviceKey(device), () => {
   const ch = characteristic(device);
-  if (!ch) return { plot: [], desc: `The device library holds no published time-current points for ${device.code} ${fmt(device.rating_a)} A.` };
+  if (!ch) return { plot: '', desc: `The device library holds no published time-current points for ${device.code} ${fmt(device.rating_a)} A.` };
   const plot: string[] = [];
   const slow = edgePath(ch.slowest);
   let desc: string;
@@ -119,7 +130,7 @@ const band = (device: Device) => bands(deviceKey(device), () => {
     desc = `The line is the slowest operating time of ${ch.source}; no fastest edge is published.`;
   }
   plot.push(`<polyline class="slowest" points="${toXY(slow)}"/>`);
-  return { plot, desc };
+  return { plot: afterBreaks(plot), desc };
 });
 
 /** A downstream device's band as points (its hatch is named after the snippet's title), by device. */
@@ -131,8 +142,8 @@ const downstreamBand = (device: Device) => downstreamBands(deviceKey(device), ()
   return { area: down.fastest ? bandArea(edgePath(down.fastest), slow) : null, slowest: toXY(slow), source: down.source };
 });
 
-/** The fault point's line, marker, label and sentence, by device and fault current. */
-const faultPoints = boundedCache<{ plot: readonly string[]; over: readonly string[]; desc: string }>(2048);
+/** The fault point's line, marker and label (lines after their breaks) and its sentence, by device and fault current. */
+const faultPoints = boundedCache<{ plot: string; over: string; desc: string }>(2048);
 const faultPoint = (device: Device, fault: number) => faultPoints(`${deviceKey(device)} ${fault}`, () => {
   const plot: string[] = [];
   const over: string[] = [];
@@ -150,67 +161,69 @@ const faultPoint = (device: Device, fault: number) => faultPoints(`${deviceKey(d
   const desc = t === null
     ? `At a fault current of ${shown} the device is not known to operate.`
     : `At a fault current of ${shown} the slowest operating time is ${fmt(t)} s.`;
-  return { plot, over, desc };
+  return { plot: afterBreaks(plot), over: afterBreaks(over), desc };
 });
 
-/** The decade grid, the same in every snippet. */
-const GRID: readonly string[] = grid();
+/** The snippet's first line, the same in every snippet. */
+const OPEN = `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans Condensed, DejaVu Sans, sans-serif" font-size="${FONT}">`;
+/** From the plot's group, with the decade grid, to the opening of the plot area: the same in every snippet. */
+const PLOT_OPEN = afterBreaks([
+  `<g transform="translate(${M.left},${M.top})">`,
+  ...grid(),
+  `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,
+]);
+const PLOT_CLOSE = afterBreaks(['</svg>', `<rect class="frame" x="0" y="0" width="${PW}" height="${PH}"/>`]);
+const AXES = afterBreaks([
+  `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 24)}" text-anchor="middle">prospective fault current (A)</text>`,
+  `<text class="axis" transform="translate(-29,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
+  '</g>',
+  '</svg>',
+]);
 
 export function curveSnippet(opts: CurveSnippetOptions, form: SnippetForm = {}): string {
   const { device } = opts;
   const name = `${device.code} ${fmt(device.rating_a)} A`;
   const title = opts.title ?? `${name}: time-current characteristic`;
   const own = band(device);
-  const desc: string[] = [own.desc];
-  const plot: string[] = [...own.plot];
-  const over: string[] = [];
+  // the sentences joined by spaces; the plot's and the overlay's lines each after its line break
+  let desc = own.desc;
+  let plot = own.plot;
+  let over = '';
 
-  const down = opts.downstream ? downstreamBand(opts.downstream.device) : null;
-  const hatch = `ps-hatch-${title.replace(/[^A-Za-z0-9]+/g, '-')}`;
-  if (opts.downstream && down) {
-    if (down.area !== null) plot.push(`<polygon class="band2" fill="url(#${hatch})" points="${down.area}"/>`);
-    plot.push(`<polyline class="slowest2" points="${down.slowest}"/>`);
-    desc.push(`The hatched band is ${opts.downstream.label} (${down.source}), the largest device on the board this circuit feeds.`);
-    const upto = opts.downstream.uptoA;
-    if (upto !== null && upto >= I_MIN && upto <= I_MAX) {
-      plot.push(`<line class="upto" x1="${c(x(upto))}" y1="0.0" x2="${c(x(upto))}" y2="${c(PH)}"/>`);
-      over.push(`<text class="note" x="${c(x(upto) - 3)}" y="${c(PH - 4)}" text-anchor="end">${escape(`${fmt(upto)} A at the fed board`)}</text>`);
-      desc.push(`The dotted line is the prospective fault current at that board, ${fmt(upto)} A: selectivity is judged up to it.`);
+  let defs = '';
+  if (opts.downstream) {
+    const hatch = `ps-hatch-${title.replace(/[^A-Za-z0-9]+/g, '-')}`;
+    defs = `\n<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`;
+    const down = downstreamBand(opts.downstream.device);
+    if (down) {
+      if (down.area !== null) plot += `\n<polygon class="band2" fill="url(#${hatch})" points="${down.area}"/>`;
+      plot += `\n<polyline class="slowest2" points="${down.slowest}"/>`;
+      desc += ` The hatched band is ${opts.downstream.label} (${down.source}), the largest device on the board this circuit feeds.`;
+      const upto = opts.downstream.uptoA;
+      if (upto !== null && upto >= I_MIN && upto <= I_MAX) {
+        plot += `\n<line class="upto" x1="${c(x(upto))}" y1="0.0" x2="${c(x(upto))}" y2="${c(PH)}"/>`;
+        over += `\n<text class="note" x="${c(x(upto) - 3)}" y="${c(PH - 4)}" text-anchor="end">${escape(`${fmt(upto)} A at the fed board`)}</text>`;
+        desc += ` The dotted line is the prospective fault current at that board, ${fmt(upto)} A: selectivity is judged up to it.`;
+      }
     }
   }
 
   const required = opts.requiredS ?? null;
   if (required !== null && required >= T_MIN && required <= T_MAX) {
     const yr = c(y(required));
-    plot.push(`<line class="required" x1="0.0" y1="${yr}" x2="${c(PW)}" y2="${yr}"/>`);
-    over.push(`<text class="note" x="${c(PW - 2)}" y="${c(y(required) - 3)}" text-anchor="end">${fmt(required)} s required</text>`);
-    desc.push(`The dashed line is the required disconnection time, ${fmt(required)} s.`);
+    plot += `\n<line class="required" x1="0.0" y1="${yr}" x2="${c(PW)}" y2="${yr}"/>`;
+    over += `\n<text class="note" x="${c(PW - 2)}" y="${c(y(required) - 3)}" text-anchor="end">${fmt(required)} s required</text>`;
+    desc += ` The dashed line is the required disconnection time, ${fmt(required)} s.`;
   }
 
   const fault = opts.faultCurrentA ?? null;
   if (fault !== null && fault > 0) {
     const f = faultPoint(device, fault);
-    plot.push(...f.plot);
-    over.push(...f.over);
-    desc.push(f.desc);
+    plot += f.plot;
+    over += f.over;
+    desc += ` ${f.desc}`;
   }
 
-  return [
-    `<svg xmlns="http://www.w3.org/2000/svg" class="ps-curve" role="img" width="${WIDTH}" height="${HEIGHT}" viewBox="0 0 ${WIDTH} ${HEIGHT}" font-family="DejaVu Sans Condensed, DejaVu Sans, sans-serif" font-size="${FONT}">`,
-    `<title>${escape(title)}</title>`,
-    `<desc>${escape(desc.join(' '))}</desc>`,
-    ...(form.style === false ? [] : [`<style>${CURVE_CSS}</style>`]),
-    ...(opts.downstream ? [`<defs><pattern id="${escape(hatch)}" patternUnits="userSpaceOnUse" width="5" height="5" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="5" stroke="#b08a2e" stroke-width="1.4"/></pattern></defs>`] : []),
-    `<g transform="translate(${M.left},${M.top})">`,
-    ...GRID,
-    `<svg class="plot" x="0" y="0" width="${PW}" height="${PH}" viewBox="0 0 ${PW} ${PH}" overflow="hidden">`,
-    ...plot,
-    '</svg>',
-    `<rect class="frame" x="0" y="0" width="${PW}" height="${PH}"/>`,
-    ...over,
-    `<text class="axis" x="${c(PW / 2)}" y="${c(PH + 24)}" text-anchor="middle">prospective fault current (A)</text>`,
-    `<text class="axis" transform="translate(-29,${c(PH / 2)}) rotate(-90)" text-anchor="middle">operating time (s)</text>`,
-    '</g>',
-    '</svg>',
-  ].join('\n');
+  return `${OPEN}\n<title>${escape(title)}</title>\n<desc>${escape(desc)}</desc>${form.style === false ? '' : `\n<style>${CURVE_CSS}</style>`}${defs}`
+    + `${PLOT_OPEN}${plot}${PLOT_CLOSE}${over}${AXES}`;
 }

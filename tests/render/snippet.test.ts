@@ -88,4 +88,46 @@ describe('curveSnippet', () => {
     expect(XMLValidator.validate(unknown)).toBe(true);
     expect(String(parse(unknown).desc)).toMatch(/no published time-current points/);
   });
+
+  it('writes one element a line in a fixed order, whatever it draws', () => {
+    // the snippet is put together from blocks of lines written once (the grid, a device's band):
+    // every combination of what it draws keeps one element a line, in the order of the drawing
+    const devices = [{ code: 'mcb:B', rating_a: 32 }, { code: 'fuse:bs3036', rating_a: 30 }, { code: 'fuse:bs88-3', rating_a: 45 }] as const;
+    const order = ['svg', 'title', 'desc', 'style', 'defs', 'g', 'grid', 'plot', 'band', 'fastest', 'slowest', 'band2', 'slowest2', 'upto', 'required', 'fault',
+      '/svg', 'frame', 'note', 'marker', 'axis', '/g', '/svg'];
+    const kind = (line: string): string => {
+      const m = /^<(\/?[a-z]+)(?: class="([a-z0-9]+)")?/.exec(line)!;
+      if (m[1] === 'line' || m[1] === 'text' || m[1] === 'polygon' || m[1] === 'polyline' || m[1] === 'rect' || m[1] === 'circle') return m[2] === 'tick' ? 'grid' : m[2]!;
+      return m[1] === 'svg' && m[2] === 'plot' ? 'plot' : m[1]!;
+    };
+    // a line is one element: empty, with text, or the opening or closing of a group
+    const ONE_ELEMENT = /^(?:<([a-z]+)[^<>]*\/>|<([a-z]+)[^<>]*>[^<>]*<\/\2>|<\/?(?:svg|g)(?: [^<>]*)?>)$/;
+    let seen = 0;
+    for (const device of devices) {
+      for (const faultCurrentA of [undefined, null, 0, 0.5, 40, 317, 5000, 20000]) {
+        for (const requiredS of [undefined, 0.4, 5, 0.001]) {
+          for (const downstream of [undefined, { device: devices[0]!, label: 'DB2/1 mcb:B 32 A', uptoA: 900 }, { device: devices[1]!, label: 'x', uptoA: null }, { device: devices[2]!, label: 'y', uptoA: 2e4 }]) {
+            for (const style of [true, false]) {
+              const out = curveSnippet({ device, faultCurrentA, requiredS, downstream, title: 'DB1 1: "a" & <b>' }, { style });
+              expect(XMLValidator.validate(out)).toBe(true);
+              const lines = out.split('\n');
+              for (const line of lines) expect(ONE_ELEMENT.test(line) || line.startsWith('<defs>'), line).toBe(true);
+              const kinds = lines.map(kind);
+              // each line one element, in the drawing's order (notes come after the frame, before the marker or after it)
+              let at = 0;
+              for (const k of kinds.filter((k) => k !== 'note' && k !== 'marker')) {
+                const next = order.indexOf(k, at);
+                expect(next, `${k} in ${kinds.join(' ')}`).toBeGreaterThanOrEqual(at);
+                at = k === '/svg' && next === order.indexOf('/svg') ? next + 1 : next;
+              }
+              expect(kinds.includes('style')).toBe(style);
+              expect(kinds.includes('defs')).toBe(downstream !== undefined);
+              seen++;
+            }
+          }
+        }
+      }
+    }
+    expect(seen).toBe(768);
+  });
 });
