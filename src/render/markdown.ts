@@ -9,6 +9,7 @@ import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
 import rehypeStringify from 'rehype-stringify';
 import { boundedCache } from './memo.js';
+import { plainNotesHtml } from './markdown-plain.js';
 
 const schema = {
   ...defaultSchema,
@@ -48,15 +49,18 @@ function makeProcessor(topLevel: number) {
 /** The HTML of notes by their level and text: a job's notes are rendered again on every build and every save while served. */
 const rendered = boundedCache<string>(128);
 
-/** `topLevel` 0 keeps the headings as written. */
+/** The full pipeline, for any notes. */
+export function pipelineHtml(markdown: string, level: number): string {
+  let p = processors.get(level);
+  if (!p) {
+    p = makeProcessor(level);
+    processors.set(level, p);
+  }
+  return String(p.processSync(markdown));
+}
+
+/** `topLevel` 0 keeps the headings as written. Notes of only headings and plain paragraphs skip the pipeline (markdown-plain.ts). */
 export function markdownToHtml(markdown: string, opts: { topLevel?: number } = {}): string {
   const level = opts.topLevel ?? 0;
-  return rendered(`${level}\n${markdown}`, () => {
-    let p = processors.get(level);
-    if (!p) {
-      p = makeProcessor(level);
-      processors.set(level, p);
-    }
-    return String(p.processSync(markdown));
-  });
+  return plainNotesHtml(markdown, level) ?? rendered(`${level}\n${markdown}`, () => pipelineHtml(markdown, level));
 }
