@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -24,76 +25,57 @@ describe('notes.md to safe HTML', () => {
 });
 
 describe('notes of only headings and plain paragraphs', () => {
-  // mulberry32: the same notes on every run
-  let seed = 29;
-  const next = (n: number) => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) % n;
-  };
-  const pick = <T>(xs: readonly T[]): T => xs[next(xs.length)]!;
   const WORDS = ['Scope', 'the', 'board', 'DB1', '32', 'A', 'circuit', 'kiln', "client's", '"quoted"', '(ring)', 'Zs', '0.84', 'Ω', 'mm²', '—', '≤', 'été', 'Ärger', '日本',
     'a,', 'b.', 'c;', 'd:', 'e?', 'f!', '50%', '+5', 'x-y', '1.', '2)', '°C', '±1', '3×4', 'a·b', '‘a’', '“b”'];
+  const LETTER_WORDS = WORDS.filter((w) => /^\p{L}/u.test(w));
   // anything Markdown may read otherwise: each must send the notes to the full pipeline, or give the same HTML there
   const ODD = ['*a*', '_a_', '`a`', '[a](b)', '<b>', '<', '>', '1<2', 'a & b', '&amp;', 'a\\b', 'a | b', '~~a~~', 'a=b', 'a/b', 'a@b.c', 'www.x.org', 'WwW.x', 'http://x', 'https://x.y',
     '#', 'C#', '![a](b)', '[^1]', '\t', '\r', '\u00a0', '\u0000', '\u200b', '😀', 'é', 'x\u0301', '\ufeff', '$x$', '{a}', '<!-- c -->', '::', 'a  b'];
-  const LETTER_WORDS = WORDS.filter((w) => /^\p{L}/u.test(w));
-  const text = () => [pick(LETTER_WORDS), ...Array.from({ length: next(6) }, () => pick(WORDS))].join(' ');
+
+  const word = fc.constantFrom(...WORDS);
+  const line = fc.tuple(fc.constantFrom(...LETTER_WORDS), fc.array(word, { maxLength: 6 })).map(([first, rest]) => [first, ...rest].join(' '));
+  const heading = fc.tuple(fc.integer({ min: 1, max: 6 }), fc.constantFrom(...LETTER_WORDS, '1.', '32', 'Ω'), fc.option(line))
+    .map(([depth, first, rest]) => `${'#'.repeat(depth)} ${first}${rest === null ? '' : ` ${rest}`}`);
+  /** Lines of notes in the plain shape: blank, a heading, a line of a paragraph. */
+  const plainLine = fc.oneof(fc.constant(''), heading, line, line);
   /** Lines Markdown reads as something else than a heading or a line of a paragraph, or that may change one. */
-  const oddLine = (): string => {
-    switch (next(6)) {
-      case 0: return pick(['===', '---', '***', '___', '- - -', '=', '-', '```', '~~~', '<div>', '</div>', '<!--', '-->', '[a]: http://x', '| a | b |', '|---|---|', ' ', '\t', '\r']);
-      case 1: return `${pick(['- ', '* ', '+ ', '1. ', '2) ', '> ', '    ', ' ', '   ', '| ', '\t'])}${text()}`;
-      case 2: return `${text()}${pick(['  ', ' ', '\\', '\t', ' |', '\r'])}`;
-      case 3: return `${pick(['', '#######', '#', '##'])}${pick(['', '  ', '\t', ' '])}${text()}${pick(['', ' #', ' ##', '#'])}`;
-      case 4: return `${'#'.repeat(1 + next(6))} ${pick(['#', '', ' ', '(', '"', '1. ', '- ', '—'])}${text()}`;
-      default: return `${pick(['', ' ', '\u00a0'])}${pick(WORDS)}`;
-    }
-  };
-  /** Notes in the plain shape: blank lines, headings and lines of paragraphs. */
-  const plainLines = (): string[] => Array.from({ length: 1 + next(9) }, () => {
-    const k = next(6);
-    return k === 0 ? '' : k === 1 ? `${'#'.repeat(1 + next(6))} ${pick([...LETTER_WORDS, '1.', '32', 'Ω'])}${next(2) ? ` ${text()}` : ''}` : text();
-  });
-  const notes: string[] = ['## Scope\n\nGenerated job 1 for the bench: 24 circuits on 1 board(s).\n', '', '\n\n', '# A\n## B\n### C\n#### D\n##### E\n###### F', 'a\n\n\n\nb',
+  const oddLine = fc.oneof(
+    fc.constantFrom('===', '---', '***', '___', '- - -', '=', '-', '```', '~~~', '<div>', '</div>', '<!--', '-->', '[a]: http://x', '| a | b |', '|---|---|', ' ', '\t', '\r'),
+    fc.tuple(fc.constantFrom('- ', '* ', '+ ', '1. ', '2) ', '> ', '    ', ' ', '   ', '| ', '\t'), line).map(([a, b]) => a + b),
+    fc.tuple(line, fc.constantFrom('  ', ' ', '\\', '\t', ' |', '\r')).map(([a, b]) => a + b),
+    fc.tuple(fc.constantFrom('', '#######', '#', '##'), fc.constantFrom('', '  ', '\t', ' '), line, fc.constantFrom('', ' #', ' ##', '#')).map((p) => p.join('')),
+    fc.tuple(fc.integer({ min: 1, max: 6 }), fc.constantFrom('#', '', ' ', '(', '"', '1. ', '- ', '—'), line).map(([depth, a, b]) => `${'#'.repeat(depth)} ${a}${b}`),
+    fc.tuple(fc.constantFrom('', ' ', '\u00a0'), word).map(([a, b]) => a + b),
+    // an odd piece among plain words, after a space or straight after a word
+    fc.tuple(fc.array(word, { maxLength: 3 }), fc.constantFrom(...ODD), fc.array(word, { maxLength: 3 }), fc.constantFrom(' ', ''), fc.constantFrom(...LETTER_WORDS))
+      .map(([before, odd, after, space, first]) => [first, ...before, odd, ...after].join(space)),
+  );
+  const notes = fc.tuple(fc.array(plainLine, { minLength: 1, maxLength: 9 }), fc.array(fc.tuple(fc.nat(), oddLine), { maxLength: 2 }), fc.constantFrom('', '\n', '\n\n'))
+    .map(([lines, odd, end]) => {
+      const all = [...lines];
+      for (const [at, l] of odd) all.splice(at % (all.length + 1), 0, l);
+      return all.join('\n') + end;
+    });
+
+  const AWKWARD = ['## Scope\n\nGenerated job 1 for the bench: 24 circuits on 1 board(s).\n', '', '\n\n', '# A\n## B\n### C\n#### D\n##### E\n###### F', 'a\n\n\n\nb',
     '####### Seven', '#Scope', '# #', '## Scope #', '# Scope\n===', 'Scope\n===', 'Scope\n---', 'See www.example.com', 'WWW.example.com', 'a\tb', '  Indented', '    Code',
-    'Trailing  \nbreak', 'Back\\\nslash', 'x\r\ny', '\ufeffBOM', 'a\u00a0b', 'a`b`', 'a\u0000b', 'Scope\n- item', 'Scope\n1. item', 'Scope\n> quote', 'a | b\n--|--', 'Zs = 0.8 Ω'];
-  for (let i = 0; i < 1500; i++) {
-    const lines = plainLines();
-    // a third plain; the others with one thing Markdown may read otherwise (a few with two)
-    for (let n = next(3) === 0 ? 0 : next(5) === 0 ? 2 : 1; n > 0; n--) {
-      const at = next(lines.length + 1);
-      if (next(2)) {
-        lines.splice(at, 0, oddLine());
-      } else {
-        const words = (lines[at] ?? text()).split(' ');
-        words.splice(next(words.length + 1), 0, pick(ODD));
-        lines[at] = words.join(next(5) === 0 ? '' : ' ');
-      }
-    }
-    notes.push(lines.join('\n') + pick(['', '\n', '\n\n']));
-  }
-  for (const root of ['projects', 'tests/fixtures']) {
-    for (const job of readdirSync(root)) {
-      const f = join(root, job, 'notes.md');
-      if (existsSync(f)) notes.push(readFileSync(f, 'utf8'));
-    }
-  }
+    'Trailing  \nbreak', 'Back\\\nslash', 'x\r\ny', '\ufeffBOM', 'a\u00a0b', 'a`b`', 'a\u0000b', 'Scope\n- item', 'Scope\n1. item', 'Scope\n> quote', 'a | b\n--|--', 'Zs = 0.8 Ω', 'a < b'];
 
   it('give the HTML of the full pipeline, for notes in that shape and out of it, at any heading level', () => {
-    let plain = 0;
-    for (const [i, md] of notes.entries()) {
-      for (const level of i % 5 === 0 ? [0, 1, 3, 6] : [0, 3]) {
-        const fast = plainNotesHtml(md, level);
-        if (fast === null) continue;
-        plain++;
-        expect(fast, JSON.stringify(md)).toBe(pipelineHtml(md, level));
-      }
+    const seen = { plain: 0, other: 0 };
+    const same = (md: string, level: number) => {
+      const fast = plainNotesHtml(md, level);
+      seen[fast === null ? 'other' : 'plain']++;
+      if (fast !== null) expect(fast, JSON.stringify(md)).toBe(pipelineHtml(md, level));
+    };
+    const demo = ['projects', 'tests/fixtures'].flatMap((root) => readdirSync(root).map((job) => join(root, job, 'notes.md')).filter(existsSync)).map((f) => readFileSync(f, 'utf8'));
+    for (const md of [...AWKWARD, ...demo]) {
+      for (const level of [0, 1, 3, 6]) same(md, level);
       expect(markdownToHtml(md, { topLevel: 3 }), JSON.stringify(md)).toBe(pipelineHtml(md, 3));
     }
+    fc.assert(fc.property(notes, fc.constantFrom(0, 1, 3, 6), (md, level) => same(md, level)), { numRuns: 2500 });
     // both paths are taken, often
-    expect(plain).toBeGreaterThan(1000);
-    expect(notes.filter((md) => plainNotesHtml(md, 3) === null).length).toBeGreaterThan(500);
+    expect(seen.plain).toBeGreaterThan(500);
+    expect(seen.other).toBeGreaterThan(500);
   });
 });
