@@ -8,6 +8,7 @@ import { RESULT_COLUMNS } from '../../src/render/sections/schedules.js';
 import { renderPack, renderPackFiles } from '../../src/render/pack.js';
 import { createEngine } from '../../src/render/engine.js';
 import { snippetRequest } from '../../src/render/snippets.js';
+import { checkLabel, TEST_CHECKS } from '../../src/render/labels.js';
 import type { Assessment } from '../../src/calc/types.js';
 
 function job(dir: string) {
@@ -211,6 +212,34 @@ describe('the pack view', () => {
     expect(head).toContain('svg.ps-curve .required{');
     // scoped: a class of the pack's own HTML (a theme's cover band, a note) is not drawn as a curve
     expect(head).not.toMatch(/[}>]\.band\{/);
+  });
+
+  it('lists in the appendix every check that applies, in order, the others in one line, and ranks the circuit by all of them', () => {
+    for (const dir of [DEMO, FIXTURE]) {
+      const { project, assessment } = job(dir);
+      const view = buildView(project, assessment, OPTS);
+      const circuits = view.appendix.flatMap((b) => b.circuits.map((c) => ({ board: b.id, c })));
+      expect(circuits).toHaveLength(assessment.circuits.length);
+      for (const { board, c } of circuits) {
+        const a = assessment.circuits.find((x) => x.board === board && x.ref === c.ref)!;
+        expect(c.checks.map((k) => k.id)).toEqual(a.checks.filter((k) => k.status !== 'n/a').map((k) => k.id));
+        const na = a.checks.filter((k) => k.status === 'n/a').map((k) => checkLabel(k.id));
+        expect(c.notApplicable).toBe(na.length ? na.join(', ') : null);
+        expect(c.look.status).toBe(worstStatus(a.checks.map((k) => k.status)));
+        // a passing check without a pair of numbers: its finding, the basis before its first colon
+        for (const k of c.checks.filter((k) => !k.full && !/ [≤≥=] |; /.test(k.line))) expect(k.line).not.toContain(': ');
+      }
+      for (const b of view.boards) {
+        for (const r of b.results) {
+          const a = assessment.circuits.find((x) => x.board === b.id && x.ref === r.ref)!;
+          expect(r.look.status).toBe(worstStatus(a.checks.filter((k) => TEST_CHECKS.has(k.id)).map((k) => k.status)));
+        }
+        for (const r of b.circuits) {
+          const a = assessment.circuits.find((x) => x.board === b.id && x.ref === r.ref)!;
+          expect(r.look.status).toBe(worstStatus(a.checks.filter((k) => !TEST_CHECKS.has(k.id)).map((k) => k.status)));
+        }
+      }
+    }
   });
 
   it('ranks a circuit by its worst check', () => {

@@ -2,7 +2,7 @@
 // limit), any other with its full basis and, where re-tested, its earlier verdicts; and the
 // circuit's curve snippet.
 import type { Project } from '../../model/validate.js';
-import type { Assessment, CheckResult, CircuitAssessment } from '../../calc/types.js';
+import type { Assessment, CheckResult, CircuitAssessment, Status } from '../../calc/types.js';
 import { circuitKey } from '../../model/readings.js';
 import { checkLabel, plainWords, sentence } from '../labels.js';
 import { look, worstStatus } from '../status.js';
@@ -10,14 +10,22 @@ import { comparison, historyLine } from '../values.js';
 import { circuitSnippet, snippetRequest } from '../snippets.js';
 import { anchor, circuitAnchor } from './schedules.js';
 
+/** The text before its first ": " (all of it where there is none). */
+const beforeColon = (text: string): string => {
+  const at = text.indexOf(': ');
+  return at === -1 ? text : text.slice(0, at);
+};
+
 /** A check as the appendix shows it: `full` where the reader needs the whole working. */
 export function checkLine(k: CheckResult) {
   const full = k.status !== 'pass' && k.status !== 'n/a';
   // a passing check without a pair of numbers gives its finding, the basis before its first colon
-  const line = full ? plainWords(k.basis) : (comparison(k) ?? plainWords(k.basis).split(': ')[0]!);
+  const line = full ? plainWords(k.basis) : (comparison(k) ?? beforeColon(plainWords(k.basis)));
   const history = historyLine(k);
   return { id: k.id, label: checkLabel(k.id), line, full, date: k.date ?? null, history: history === null ? null : plainWords(history), remedy: k.remedy ? sentence(plainWords(k.remedy)) : null, look: look(k.status) };
 }
+
+type CheckView = ReturnType<typeof checkLine>;
 
 export function appendixBoards(project: Project, assessment: Assessment, byCircuit: Map<string, CircuitAssessment>) {
   return project.file.boards.map((b) => ({
@@ -28,15 +36,23 @@ export function appendixBoards(project: Project, assessment: Assessment, byCircu
       const key = circuitKey(c.board, c.ref);
       const a = byCircuit.get(key)!;
       const snippet = snippetRequest(c, a.derived, project.readings.get(key) ?? {}, assessment.rules, a.feeds);
+      const statuses: Status[] = [];
+      const checks: CheckView[] = [];
+      let notApplicable: string | null = null;
+      for (const k of a.checks) {
+        statuses.push(k.status);
+        if (k.status !== 'n/a') checks.push(checkLine(k));
+        else notApplicable = notApplicable === null ? checkLabel(k.id) : `${notApplicable}, ${checkLabel(k.id)}`;
+      }
       return {
         ref: c.ref,
         description: c.description,
         anchor: circuitAnchor(c),
         notes: c.notes ? c.notes : null,
-        look: look(worstStatus(a.checks.map((k) => k.status))),
-        checks: a.checks.filter((k) => k.status !== 'n/a').map(checkLine),
+        look: look(worstStatus(statuses)),
+        checks,
         // the checks that do not apply, in one line: their labels (each says why in check --explain and data.json)
-        notApplicable: a.checks.filter((k) => k.status === 'n/a').map((k) => checkLabel(k.id)).join(', ') || null,
+        notApplicable: notApplicable || null,
         naLook: look('n/a'),
         // no length passes: why (the schedule shows "none")
         noRun: a.derived.max_length_m === null && a.max_length_basis ? plainWords(a.max_length_basis) : null,

@@ -2,7 +2,7 @@
 // per circuit for the test results, each cell a reading with the verdict of the check that judges
 // it; re-tested cells carry a mark whose footnote gives the earlier values.
 import type { CircuitRecord, Project } from '../../model/validate.js';
-import type { Assessment, CircuitAssessment, CheckResult } from '../../calc/types.js';
+import type { Assessment, CircuitAssessment, CheckResult, Status } from '../../calc/types.js';
 import { treeView } from './tree.js';
 import { circuitKey, type CircuitReadings, type Measured } from '../../model/readings.js';
 import type { MeasuredField } from '../../model/schema.js';
@@ -58,17 +58,22 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
   const checks = new Map<string, CheckResult>(a.checks.map((k) => [k.id, k]));
   let mark: number | null = null;
   const earlier = new Map<string, string[]>();
-  const dates: string[] = [];
+  /** the latest test date of the row (the greatest in the order sort() gives) */
+  let last: string | null = null;
   const cells = RESULT_COLUMNS.map(({ field, checks: judges }) => {
-    const judged = judges.map((id) => checks.get(id)).filter((k): k is CheckResult => k !== undefined);
-    const status = judged.length ? worstStatus(judged.map((k) => k.status)) : null;
+    const judged: Status[] = [];
+    for (const id of judges) {
+      const k = checks.get(id);
+      if (k !== undefined) judged.push(k.status);
+    }
+    const status = judged.length ? worstStatus(judged) : null;
     const m = measuredOf(readings, field);
     if (!m) {
       // nothing recorded: blank where no check needs it, a dash with the verdict where one does
       const needed = status !== null && status !== 'n/a' && status !== 'pass';
       return { shown: needed ? '—' : '', look: needed ? look(status) : null, mark: null as number | null };
     }
-    dates.push(m.date);
+    if (last === null || m.date > last) last = m.date;
     if (m.earlier.length) {
       mark ??= notes.length + 1;
       for (const e of m.earlier) earlier.set(e.date, [...(earlier.get(e.date) ?? []), `${lower(READING_LABELS[field]!.label)} ${showAny(field, e.value)}`]);
@@ -79,7 +84,6 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
       mark: m.earlier.length ? mark : null,
     };
   });
-  const last = dates.sort().at(-1) ?? null;
   if (mark !== null) {
     const before = [...earlier.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([date, values]) => `on ${date}: ${values.join(', ')}`);
     notes.push({ mark, text: `${c.board} ${c.ref}, re-tested: the marked readings replace those taken ${before.join('; ')}.` });
@@ -91,8 +95,15 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
     cells,
     tested: last,
     by: last ? testerOn(readings, last) : null,
-    look: look(worstStatus(a.checks.filter((k) => TEST_CHECKS.has(k.id)).map((k) => k.status))),
+    look: look(worstOf(a.checks, true)),
   };
+}
+
+/** The worst status of a circuit's test checks (tests true) or of its design checks (tests false). */
+function worstOf(checks: readonly CheckResult[], tests: boolean): Status {
+  const statuses: Status[] = [];
+  for (const k of checks) if (TEST_CHECKS.has(k.id) === tests) statuses.push(k.status);
+  return worstStatus(statuses);
 }
 
 /** A length kept to three figures, rounded down (a longest run must never be shown longer than found). */
@@ -103,7 +114,11 @@ export function downTo3(m: number): number {
 }
 
 function designRow(c: CircuitRecord, a: CircuitAssessment) {
-  const derived = Object.fromEntries(DERIVED_FIELDS.map((k) => [k, typeof a.derived[k] === 'number' ? a.derived[k] : null])) as Record<(typeof DERIVED_FIELDS)[number], number | null>;
+  const derived = {} as Record<(typeof DERIVED_FIELDS)[number], number | null>;
+  for (const k of DERIVED_FIELDS) {
+    const v = a.derived[k];
+    derived[k] = typeof v === 'number' ? v : null;
+  }
   if (derived.max_length_m !== null) derived.max_length_m = downTo3(derived.max_length_m);
   const ringWord = c.ring && !/\bring\b/i.test(c.description);
   return {
@@ -122,14 +137,18 @@ function designRow(c: CircuitRecord, a: CircuitAssessment) {
     derived,
     /** no length passes: the cell says "none" and the key below the table says why */
     noRun: derived.max_length_m === null && a.max_length_basis !== undefined,
-    look: look(worstStatus(a.checks.filter((k) => !TEST_CHECKS.has(k.id)).map((k) => k.status))),
+    look: look(worstOf(a.checks, false)),
   };
 }
 
 export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
   return project.file.boards.map((b) => {
     const notes: Footnote[] = [];
-    const circuits = project.circuits.filter((c) => c.board === b.id);
+    // each circuit with its assessment and readings, looked up once
+    const circuits = project.circuits.filter((c) => c.board === b.id).map((c) => {
+      const key = circuitKey(c.board, c.ref);
+      return { c, a: byCircuit.get(key)!, readings: project.readings.get(key) };
+    });
     return {
       id: b.id,
       location: b.location ?? null,
@@ -137,9 +156,9 @@ export function boardSchedules(project: Project, byCircuit: Map<string, CircuitA
       zdb_ohm: b.zdb_ohm ?? null,
       pfc_ka: b.pfc_ka ?? null,
       tree: treeView(b.id, assessment),
-      circuits: circuits.map((c) => designRow(c, byCircuit.get(circuitKey(c.board, c.ref))!)),
-      noRun: circuits.filter((c) => byCircuit.get(circuitKey(c.board, c.ref))!.derived.max_length_m === null),
-      results: circuits.map((c) => resultRow(c, byCircuit.get(circuitKey(c.board, c.ref))!, project.readings.get(circuitKey(c.board, c.ref)) ?? {}, notes)),
+      circuits: circuits.map(({ c, a }) => designRow(c, a)),
+      noRun: circuits.filter(({ a }) => a.derived.max_length_m === null).map(({ c }) => c),
+      results: circuits.map(({ c, a, readings }) => resultRow(c, a, readings ?? {}, notes)),
       footnotes: notes,
     };
   });
