@@ -65,6 +65,14 @@ function zeroed(value: unknown): unknown {
   return value;
 }
 
+/** The view with one field of every status look changed, its status kept: the native partials write the usual looks once. */
+function relooked(value: unknown, field: string): unknown {
+  if (Array.isArray(value)) return value.map((v) => relooked(v, field));
+  if (value === null || typeof value !== 'object') return value;
+  const o: Record<string, unknown> = Object.fromEntries(Object.entries(value).map(([k, v]) => [k, relooked(v, field)]));
+  return 'status' in o && 'css' in o && 'shape' in o ? { ...o, [field]: `${String(o[field])}"x` } : o;
+}
+
 describe('the native partials', () => {
   it('are used with the built-in templates and with a theme that replaces none of them', () => {
     expect(natives.native).toBe(true);
@@ -97,6 +105,18 @@ describe('the native partials', () => {
         if (escaped) expect(html).toContain('&amp;&lt;&gt;&quot;&#x27;&#x60;&#x3D;');
         expect(html).toBe(templates.render('pack.hbs', v));
       }
+    }
+  });
+
+  it('write a status look that differs from the usual one in any field as it is', () => {
+    const job = loaded('tests/fixtures/pack-job')!;
+    const view = buildView(job.project, job.assessment, OPTIONS[0]!, themeAssets(templates));
+    const usual = natives.render('pack.hbs', view);
+    for (const field of ['css', 'shape', 'symbol', 'word']) {
+      const v = relooked(view, field);
+      const html = natives.render('pack.hbs', v);
+      expect(html).not.toBe(usual);
+      expect(html).toBe(templates.render('pack.hbs', v));
     }
   });
 
