@@ -89,6 +89,17 @@ describe('the pack view', () => {
     expect(statuses.lastIndexOf('fail')).toBeLessThan(statuses.indexOf('not-verified'));
     expect(statuses.lastIndexOf('not-verified')).toBeLessThan(statuses.indexOf('attention'));
     expect(view.openItems[0]).toMatchObject({ board: 'DB-A', ref: '1', check: 'zs-measured' });
+    // within a status, in schedule order; the safety notes name each circuit once, in schedule order
+    for (const dir of [FIXTURE, DEMO]) {
+      const j = job(dir);
+      const v = buildView(j.project, j.assessment, OPTS);
+      const checksOf = (c: { board: string; ref: string }) => j.assessment.circuits.find((x) => x.board === c.board && x.ref === c.ref)!.checks;
+      const rank = { fail: 0, 'not-verified': 1, attention: 2, pass: 3, 'n/a': 4 };
+      const open = j.project.circuits.flatMap((c) => checksOf(c).filter((k) => rank[k.status] < 3).map((k) => ({ at: `${c.board} ${c.ref} ${k.id}`, status: k.status })));
+      expect(v.openItems.map((o) => `${o.board} ${o.ref} ${o.check}`)).toEqual(open.sort((x, y) => rank[x.status] - rank[y.status]).map((o) => o.at));
+      expect(v.safety.unverified.map((w) => w.ref)).toEqual(j.project.circuits.filter((c) => checksOf(c).some((k) => k.status === 'not-verified')).map((c) => c.ref));
+      expect(v.safety.slow.map((w) => w.ref)).toEqual(j.project.circuits.filter((c) => checksOf(c).some((k) => k.status === 'fail' && ['disconnection', 'zs-design', 'zs-measured'].includes(k.id))).map((c) => c.ref));
+    }
     expect(view.openItems[0]!.basis).toMatch(/measured Zs 9.9 Ω >/);
     const html = renderPack(project, assessment, OPTS);
     const summary = html.slice(html.indexOf('id="summary"'), html.indexOf('id="supply"'));
