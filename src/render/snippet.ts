@@ -105,13 +105,9 @@ function bandArea(fast: [number, number][], slow: [number, number][]): string {
 /**
  * Lines as they follow an earlier line of the snippet, each after its line break: the snippet is
  * these blocks put together (what joining all its lines with "\n" gives), so the grid and a
- * device's band are written once and copied only when the page is.
+ * device's band are written once, each one flat string, and copied only when the page is.
  */
-const afterBreaks = (lines: readonly string[]): string => {
-  let out = '';
-  for (const line of lines) out += `\n${line}`;
-  return out;
-};
+const afterBreaks = (lines: readonly string[]): string => ['', ...lines].join('\n');
 
 /** The band's shapes (lines after their breaks) and its sentence, by device (a pack has a handful of devices and hundreds of circuits). */
 const bands = boundedCache<{ plot: string; desc: string }>(128);

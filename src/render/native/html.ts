@@ -25,10 +25,11 @@ export function indent(text: string, pad: string): string {
   return lines.join('\n');
 }
 
+// joined rather than concatenated: one flat string, which a page holding it hundreds of times copies in one piece
 const statusOf = (look: Look): string =>
-  `<span class="status ${e(look.css)}"><span class="sym sh-${e(look.shape)}" aria-hidden="true">${e(look.symbol)}</span> ${e(look.word)}</span>\n`;
+  ['<span class="status ', e(look.css), '"><span class="sym sh-', e(look.shape), '" aria-hidden="true">', e(look.symbol), '</span> ', e(look.word), '</span>\n'].join('');
 const symbolOf = (look: Look): string =>
-  `<span class="status ${e(look.css)}" title="${e(look.word)}"><span class="sym sh-${e(look.shape)}" aria-label="${e(look.word)}">${e(look.symbol)}</span></span>\n`;
+  ['<span class="status ', e(look.css), '" title="', e(look.word), '"><span class="sym sh-', e(look.shape), '" aria-label="', e(look.word), '">', e(look.symbol), '</span></span>\n'].join('');
 
 /**
  * Both partials for each status as status.ts shows it, written once: a pack shows a status in
