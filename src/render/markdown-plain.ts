@@ -22,7 +22,8 @@ type Block = { depth: number; text: string } | string[];
  * are not only headings and paragraphs of plain words.
  */
 export function plainNotesHtml(markdown: string, topLevel: number): string | null {
-  if (LINK_START.test(markdown)) return null;
+  // a heading level that is not a whole number is left to the pipeline
+  if (!Number.isInteger(topLevel) || LINK_START.test(markdown)) return null;
   const blocks: Block[] = [];
   let paragraph: string[] | null = null;
   for (const line of markdown.split('\n')) {

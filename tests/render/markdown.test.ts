@@ -70,7 +70,8 @@ describe('notes of only headings and plain paragraphs', () => {
     };
     const demo = ['projects', 'tests/fixtures'].flatMap((root) => readdirSync(root).map((job) => join(root, job, 'notes.md')).filter(existsSync)).map((f) => readFileSync(f, 'utf8'));
     for (const md of [...AWKWARD, ...demo]) {
-      for (const level of [0, 1, 3, 6]) same(md, level);
+      for (const level of [0, 1, 3, 6, -2, 9]) same(md, level);
+      expect(plainNotesHtml(md, 2.5)).toBeNull();
       expect(markdownToHtml(md, { topLevel: 3 }), JSON.stringify(md)).toBe(pipelineHtml(md, 3));
     }
     fc.assert(fc.property(notes, fc.constantFrom(0, 1, 3, 6), (md, level) => same(md, level)), { numRuns: 2500 });
