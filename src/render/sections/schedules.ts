@@ -58,8 +58,8 @@ function resultRow(c: CircuitRecord, a: CircuitAssessment, readings: CircuitRead
   const checks = new Map<string, CheckResult>(a.checks.map((k) => [k.id, k]));
   let mark: number | null = null;
   const earlier = new Map<string, string[]>();
-  /** the latest test date of the row (the greatest in the order sort() gives) */
-  let last: string | null = null;
+  /** the latest test date of the row (the greatest in the order sort() gives); set in the cells' callback, so typed here */
+  let last = null as string | null;
   const cells = RESULT_COLUMNS.map(({ field, checks: judges }) => {
     const judged: Status[] = [];
     for (const id of judges) {
