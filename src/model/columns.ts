@@ -7,6 +7,7 @@
 import type { LocatedError, RawCell, RawTable } from '../load/raw.js';
 import { IGNORE_COLUMN, MEASURED, READING_COLUMNS, type MeasuredField } from './schema.js';
 import { QUANTITIES, unitFits } from './units.js';
+import { setOwn } from './own-field.js';
 
 export interface MappedTable {
   /** the table with its headers renamed to packsmith's columns and ignored columns removed */
@@ -88,10 +89,7 @@ function renamedCells(cells: Record<string, RawCell>, renamed: ReadonlyMap<strin
   const out: Record<string, RawCell> = {};
   for (const name of Object.keys(cells)) {
     const to = renamed.get(name);
-    if (to === undefined) continue;
-    // a key "__proto__" is made an own field, as Object.fromEntries makes it, never the prototype
-    if (to === '__proto__') Object.defineProperty(out, to, { value: cells[name], enumerable: true, writable: true, configurable: true });
-    else out[to] = cells[name]!;
+    if (to !== undefined) setOwn(out, to, cells[name]!);
   }
   return out;
 }

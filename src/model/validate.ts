@@ -11,6 +11,7 @@ import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
 import { ratingProblem } from './device-rating.js';
 import { deviceHint } from './device-hint.js';
+import { setOwn } from './own-field.js';
 
 export interface CircuitRecord extends Circuit {
   /** line of the circuit in circuits.csv */
@@ -106,11 +107,7 @@ function tableRows<S extends z.ZodType>(
 /** A row's cells as text, by column, in the order of the row's own keys. */
 function cellTexts(cells: RawRow['cells']): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const k of Object.keys(cells)) {
-    // a key "__proto__" is made an own field, as Object.fromEntries makes it, never the prototype
-    if (k === '__proto__') Object.defineProperty(out, k, { value: cells[k]!.text, enumerable: true, writable: true, configurable: true });
-    else out[k] = cells[k]!.text;
-  }
+  for (const k of Object.keys(cells)) setOwn(out, k, cells[k]!.text);
   return out;
 }
 
