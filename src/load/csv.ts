@@ -13,6 +13,8 @@ const QUOTE = 0x22;
 const LF = 0x0a;
 const CR = 0x0d;
 const breaksIn = (s: string): number => s.match(LINE_BREAK)?.length ?? 0;
+/** A "\r" not followed by "\n", or a "\n" not preceded by "\r". */
+const MIXED_ENDING = /\r(?!\n)|(?<!\r)\n/;
 
 /** The separator of a file: a comma, unless its header line has none but has semicolons or tabs. */
 export function separatorOf(text: string): ',' | ';' | '\t' {
@@ -94,8 +96,8 @@ export function parseRecords(text: string, sep: string): Parsed[] {
  */
 export function plainRecords(text: string, sep: string): Parsed[] | null {
   if (text.includes('\0') || !(text as string & { isWellFormed(): boolean }).isWellFormed()) return null;
-  const crlf = text.includes('\r');
-  if (crlf && (text.split('\r').length !== text.split('\r\n').length || text.split('\n').length !== text.split('\r\n').length)) return null;
+  // where there is a "\r", every "\r" starts a "\r\n" and every "\n" ends one
+  if (text.includes('\r') && MIXED_ENDING.test(text)) return null;
   const s = sep.charCodeAt(0);
   const n = text.length;
   const records: Parsed[] = [];
