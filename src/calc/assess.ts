@@ -2,7 +2,7 @@
 import type { Project } from '../model/validate.js';
 import type { Board, Circuit, Supply } from '../model/schema.js';
 import { circuitKey, type CircuitReadings } from '../model/readings.js';
-import { significant } from '../model/units.js';
+import { significant, toPlaces } from '../model/units.js';
 import { makerIa, maxZs, measuredFault } from './devices/index.js';
 import { CHECKS } from './checks/index.js';
 import { minimumFaultEnergy } from './checks/adiabatic.js';
@@ -24,7 +24,7 @@ import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
-const round = (n: number, places: number): number => Number(n.toFixed(places));
+const round = toPlaces;
 
 /**
  * The parts of a circuit's context that its length changes: the design table, the drop from the

@@ -7,7 +7,7 @@
 // a class limit above it, or no figure at all, is `attention` — never a pass on an assumption, nor
 // a fail on an energy the device cannot let through. The equation holds for disconnection within 5 s.
 import type { Check, CheckResult, CircuitContext, LengthCheck, Status } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { ADIABATIC_LIMIT_S, kFor, type KFactor } from '../design/k-factor.js';
 import { letThrough, type Energy, type LetThroughInputs } from '../design/let-through.js';
 import { earthFaultMax, type Level } from '../fault-level.js';
@@ -109,7 +109,7 @@ function judged(ctx: CircuitContext, free: () => LengthFree): CheckResult {
   const needed = parts.map((p) => (p.energy ? Math.sqrt(p.energy.i2t_a2s) / k.k : 0)).reduce((a, b) => Math.max(a, b), 0);
   return result(id, status,
     () => `${parts.map((p) => said(p.words)).join('; ')}; k²S² with ${k.basis} and cpc ${fmt(circuit.cpc_mm2)} mm² (IEC 60364-5-54, 543.1.2)`,
-    { value: circuit.cpc_mm2, limit: needed > 0 ? Number(needed.toFixed(3)) : null, unit: 'mm2' });
+    { value: circuit.cpc_mm2, limit: needed > 0 ? toPlaces(needed, 3) : null, unit: 'mm2' });
 }
 
 export const adiabatic: Check = (ctx) => judged(ctx, () => lengthFree(ctx));

@@ -4,7 +4,7 @@
 // job declares for the devices of this code (rules.devices) is an assumption, printed, and the
 // verdict is at best `attention`; with neither it is not verified — never a capacity guessed.
 import type { Check } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { breakingLevel } from '../fault-level.js';
 import { notVerified, result } from './result.js';
 
@@ -15,7 +15,7 @@ export const breakingCapacity: Check = ({ circuit, board, supply, rules }) => {
   const level = breakingLevel(circuit, board, supply);
   if (!level) return notVerified(id, `no prospective fault current recorded for ${board.id} or at the origin`);
   const ka = level.amps / 1000;
-  const numbers = (limit: number) => ({ value: Number(ka.toFixed(3)), limit, unit: 'kA' });
+  const numbers = (limit: number) => ({ value: toPlaces(ka, 3), limit, unit: 'kA' });
   const given = circuit.breaking_ka;
   if (given !== undefined) {
     const ok = ka <= given;
@@ -23,7 +23,7 @@ export const breakingCapacity: Check = ({ circuit, board, supply, rules }) => {
   }
   const declared = rules.devices[circuit.device]?.breaking_ka;
   if (declared === undefined) {
-    return result(id, 'not-verified', `${level.basis}; the device's rated breaking capacity is not recorded (breaking_ka in circuits.csv, or rules.devices in project.yaml)`, { value: Number(ka.toFixed(3)), unit: 'kA' });
+    return result(id, 'not-verified', `${level.basis}; the device's rated breaking capacity is not recorded (breaking_ka in circuits.csv, or rules.devices in project.yaml)`, { value: toPlaces(ka, 3), unit: 'kA' });
   }
   const ok = ka <= declared;
   return result(id, ok ? 'attention' : 'fail',

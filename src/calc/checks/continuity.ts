@@ -9,13 +9,13 @@
 // the hot limit. No test temperature is read: a missing one could only
 // loosen the query, and a missing reading must never move a verdict towards a pass.
 import type { Check } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
 import { ALPHA20_PER_K, OPERATING_TEMP_C } from '../../reference/conductors.js';
 import { numberOf, result, shown, unusable } from './result.js';
 
 const id = 'continuity';
-const round = (n: number) => Number(n.toFixed(3));
+const round = (n: number) => toPlaces(n, 3);
 
 export const continuity: Check = (ctx) => {
   const { readings, rules, board, supply } = ctx;

@@ -4,7 +4,7 @@
 // of at least 2.5 mm², it is deemed protected against overload where Iz ≥ 20 A. A ring outside
 // those conditions is judged as any circuit, In ≤ Iz of its cable.
 import type { Check } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { notVerified, result } from './result.js';
 import { RING_RULE } from '../../reference/ring.js';
 
@@ -32,8 +32,8 @@ export const overload: Check = ({ circuit, design }) => {
     const limit = SEMI_ENCLOSED * iz;
     const ok = inA <= limit;
     const words = `${basis}; semi-enclosed fuse: Ib ${fmt(ib)} A ≤ In ${fmt(inA)} A ${ok ? '≤' : '>'} 0.725 × Iz = ${fmt(limit)} A (BS 7671 433.1.202)${ringNote}`;
-    return result(id, ok ? 'pass' : 'fail', words, { ...numbers, limit: Number(limit.toFixed(2)) });
+    return result(id, ok ? 'pass' : 'fail', words, { ...numbers, limit: toPlaces(limit, 2) });
   }
   const ok = inA <= iz;
-  return result(id, ok ? 'pass' : 'fail', `${basis}; Ib ${fmt(ib)} A ≤ In ${fmt(inA)} A ${ok ? '≤' : '>'} Iz ${fmt(iz)} A (IEC 60364-4-43, 433.1)${ringNote}`, { ...numbers, limit: Number(iz.toFixed(2)) });
+  return result(id, ok ? 'pass' : 'fail', `${basis}; Ib ${fmt(ib)} A ≤ In ${fmt(inA)} A ${ok ? '≤' : '>'} Iz ${fmt(iz)} A (IEC 60364-4-43, 433.1)${ringNote}`, { ...numbers, limit: toPlaces(iz, 2) });
 };

@@ -4,7 +4,7 @@
 // an interconnection or a wrong record); a cross-connected reading off the quarter is `attention`
 // (higher at a spur or a poor connection at the point measured). Any missing reading: not verified.
 import type { Check, CheckResult, Status } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { RING_TOLERANCE_OHM } from '../../reference/ring.js';
 import { latest, notApplicable, numberOf, result, shown, unusable, worst, type Numeric } from './result.js';
 
@@ -66,5 +66,5 @@ export const ring: Check = ({ circuit, readings }) => {
   const decisive = parts.filter((p) => p.status === status).reduce((a, b) => (b.deviation > a.deviation ? b : a));
   const date = latest(fields.map(([f]) => readings[f]!.date));
   return result(id, status, `${parts.map((p) => p.words).join('; ')} (ring final circuit tests, common practice)`,
-    { value: Number(decisive.deviation.toFixed(3)), limit: RING_TOLERANCE_OHM, unit: 'ohm', date });
+    { value: toPlaces(decisive.deviation, 3), limit: RING_TOLERANCE_OHM, unit: 'ohm', date });
 };

@@ -4,6 +4,7 @@
 import type { Check } from '../types.js';
 import { notVerified, result } from './result.js';
 import { originWords } from '../tree/origin.js';
+import { toPlaces } from '../../model/units.js';
 
 export const voltageDropCheck: Check = ({ design, vdOrigin }) => {
   const id = 'voltage-drop';
@@ -14,5 +15,5 @@ export const voltageDropCheck: Check = ({ design, vdOrigin }) => {
   const limit = design.vdLimit.percent;
   const ok = origin.percent <= limit;
   const words = () => (origin.legs.length === 0 ? own.basis : `${own.basis}; ${originWords(origin, own.percent)}`);
-  return result(id, ok ? 'pass' : 'fail', () => `${words()} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: Number(origin.percent.toFixed(2)), limit, unit: '%' });
+  return result(id, ok ? 'pass' : 'fail', () => `${words()} ${ok ? '≤' : '>'} ${design.vdLimit.basis}`, { value: toPlaces(origin.percent, 2), limit, unit: '%' });
 };

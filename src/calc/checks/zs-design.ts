@@ -2,7 +2,7 @@
 // protection allows: the max Zs that makes the overcurrent device operate within the required
 // time, or on a TT supply with an RCD, 50 V / IΔn (see fault-protection.ts).
 import type { Check } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
 import { notVerified, result } from './result.js';
 
@@ -21,6 +21,6 @@ export const zsDesign: Check = (ctx) => {
   const { board, supply } = ctx;
   const odd = ok && board.zdb_ohm !== undefined && supply.ze_ohm !== undefined && board.zdb_ohm < supply.ze_ohm;
   return result(id, odd ? 'attention' : ok ? 'pass' : 'fail', odd ? () => `${words()}; but Zdb ${fmt(board.zdb_ohm!)} Ω at ${board.id} is below Ze ${fmt(supply.ze_ohm!)} Ω, which is part of it: check the readings` : words, {
-    value: Number(zs.ohm.toFixed(3)), limit: Number(limit.toFixed(3)), unit: 'ohm',
+    value: toPlaces(zs.ohm, 3), limit: toPlaces(limit, 3), unit: 'ohm',
   });
 };

@@ -6,7 +6,7 @@
 // measured R1+R2, or below Ze (Zdb) at the board, is physically implausible (the loop contains
 // both): it is queried as `attention`, never passed.
 import type { Check, CircuitContext } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
 import { numberOf, result, unusable } from './result.js';
 
@@ -34,7 +34,7 @@ export const zsMeasured: Check = (ctx) => {
   const rule = fp.by === 'rcd'
     ? `${fmt(limit)} Ω (${fp.basis})`
     : `${rules.measured_zs_factor} × max Zs ${fmt(fp.limit_ohm)} Ω = ${fmt(limit)} Ω (the factor corrects the cold reading for the conductors' temperature in service, common practice; fault protection by the overcurrent device: ${ctx.maxZsBasis})`;
-  const numbers = { value: zs.value, over_range: zs.kind === 'at-least', limit: Number(limit.toFixed(3)), unit: 'ohm', date: m!.date };
+  const numbers = { value: zs.value, over_range: zs.kind === 'at-least', limit: toPlaces(limit, 3), unit: 'ohm', date: m!.date };
   if (zs.kind === 'at-least') {
     // ">N" is above N: at or beyond the limit it is a fail
     return zs.value >= limit

@@ -1,11 +1,11 @@
 // A board of the tree as `check --json` gives it: what feeds it, Zdb and the prospective fault
 // current derived and measured side by side (and the value each kind of check uses), and the
 // voltage drop from the origin with each feeding circuit's share.
-import { significant } from '../../model/units.js';
+import { significant, toPlaces } from '../../model/units.js';
 import { feedKey } from './build.js';
 import type { BoardSource } from './carry.js';
 
-const n = (v: number | null, places: number) => (v === null ? null : Number(v.toFixed(places)));
+const n = (v: number | null, places: number) => (v === null ? null : toPlaces(v, places));
 
 export function boardJson(b: BoardSource) {
   return {

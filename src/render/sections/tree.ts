@@ -2,8 +2,9 @@
 // and measured side by side, and the voltage drop from the origin to it, leg by leg.
 import type { Assessment } from '../../calc/types.js';
 import { anchor } from './schedules.js';
+import { toPlaces } from '../../model/units.js';
 
-const round = (v: number | null, places: number) => (v === null ? null : Number(v.toFixed(places)));
+const round = (v: number | null, places: number) => (v === null ? null : toPlaces(v, places));
 
 export function treeView(id: string, assessment: Pick<Assessment, 'boards'>) {
   const all = assessment.boards ?? [];
