@@ -65,6 +65,16 @@ describe('a re-test traced through its sessions', () => {
     expect(traced(zsMeasured, two).history).toBeUndefined();
     expect(traced(rcdTt, two).history).toBeUndefined();
   });
+  it('judges a circuit tested in one session as the check alone does, with no history', () => {
+    // B32 at 0.4 s: 1.62 Ω > max Zs 1.366 Ω (IEC 60898-1 band): a fail, judged once
+    const one = sessions({}, [{ date: '2026-11-13', readings: { zs_ohm: '1.62' } }]);
+    expect(one).toHaveLength(1);
+    const r = traced(zsMeasured, one);
+    expect(r).toEqual(zsMeasured(one[0]!.ctx));
+    expect(r.status).toBe('fail');
+    expect(r.date).toBe('2026-11-13');
+    expect(r.history).toBeUndefined();
+  });
 });
 
 describe('re-tests in a job folder (tests/fixtures/tt-instrument-job)', () => {
