@@ -1,7 +1,7 @@
 // The bench's HTML stage: every job loaded, validated, assessed, rendered through the built-in
 // templates and written, on one core. Also runnable alone, for a profile:
 //
-//   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N]
+//   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N] [--json]
 //   node dist/bench/html.js --jobs 240 --heap   (heap retained after 30, 60, 120, 240 jobs)
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -70,14 +70,15 @@ function retainedHeap(jobs: string[], htmlDir: string): void {
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' }, heap: { type: 'boolean' } } });
+  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' }, heap: { type: 'boolean' }, json: { type: 'boolean' } } });
   const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-html-'));
   try {
     const archive = generateArchive(join(root, 'projects'), Number(values.jobs));
     if (values.heap) retainedHeap(archive.jobs, join(root, 'html'));
     else for (let i = 0; i < Number(values.rounds); i++) {
       const { seconds, cpuSeconds, renderSeconds, renderCpuSeconds } = htmlStage(archive.jobs, join(root, 'html'));
-      process.stdout.write(`HTML stage: ${archive.jobs.length} jobs, ${archive.circuits} circuits in ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / seconds)} circuits/s wall, ${Math.round(archive.circuits / cpuSeconds)} circuits/s CPU; `
+      if (values.json) process.stdout.write(`${JSON.stringify({ jobs: archive.jobs.length, circuits: archive.circuits, seconds, cpuSeconds })}\n`);
+      else process.stdout.write(`HTML stage: ${archive.jobs.length} jobs, ${archive.circuits} circuits in ${seconds.toFixed(2)} s wall, ${cpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / seconds)} circuits/s wall, ${Math.round(archive.circuits / cpuSeconds)} circuits/s CPU; `
         + `render alone ${renderSeconds.toFixed(2)} s wall, ${renderCpuSeconds.toFixed(2)} s CPU: ${Math.round(archive.circuits / renderSeconds)} circuits/s wall, ${Math.round(archive.circuits / renderCpuSeconds)} circuits/s CPU\n`);
     }
   } finally {

@@ -2,7 +2,8 @@
 // side by side from one run: the HTML stage in circuits/s; the PDF stage per pack against bare
 // Chromium printing the same HTML files with the same page.pdf options (the ratio); a full build;
 // a rebuild after one re-test in archives of 200 and 1,000 jobs; a 2,000-circuit job's print time,
-// pages and peak memory; `check`'s time from the shell; the preview refresh; and peak memory.
+// pages and peak memory; `check`'s time from the shell; the HTML stage again in fresh nodes, as
+// node starts and with one V8 helper thread; the preview refresh; and peak memory.
 // `--quick` prints 10 packs in the PDF stage, rebuilds at 200 jobs only, prints a 200-circuit job
 // in place of the 2,000-circuit one and leaves out the preview (about two minutes).
 //
@@ -21,7 +22,7 @@ import { generateArchive } from './generate.js';
 import { htmlStage } from './html.js';
 import { sampleTree } from './memory.js';
 import { describeTimes, previewRefresh } from './serve.js';
-import { checkStart, largeJobFromShell, rebuildAfterRetest, retest } from './scale.js';
+import { checkStart, htmlStageByPool, largeJobFromShell, rebuildAfterRetest, retest } from './scale.js';
 
 const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' }, quick: { type: 'boolean' } } });
 const quick = values.quick === true;
@@ -108,6 +109,8 @@ async function main() {
   const large = await largeJobFromShell(root, largeCircuits);
   say(`${largeCircuits}-circuit job ${large.seconds.toFixed(1)} s, exit ${large.code}`);
   const checks = checkStart(root);
+  // ---- the HTML stage in a fresh node, as started and with one V8 helper thread, alternated
+  const byPool = htmlStageByPool(count, 3);
   // ---- packsmith serve: a save of the biggest job until the open preview shows it
   const preview = quick ? null : await previewRefresh(archive.jobs, chromium);
   if (preview) say(`preview refresh ${describeTimes(preview.saveToPage)}`);
@@ -121,6 +124,7 @@ async function main() {
     ['rebuild after one changed reading', `${rebuildS.toFixed(1)} s`, '', `${printedAgain} of ${n} packs printed again; ratio to full ${(rebuildS / fullS).toFixed(2)}`],
     ...rebuilds.map((r): [string, string, string, string] => [`rebuild after one re-test, ${r.size} jobs`, `${r.seconds.toFixed(2)} s`, '', `${r.printed} pack printed; the drafts laid down first in ${r.setup.toFixed(0)} s (blank PDFs)`]),
     [`${largeCircuits.toLocaleString('en-GB')}-circuit job, build from the shell`, large.code === 0 ? `${large.seconds.toFixed(1)} s` : `failed (exit ${large.code})`, '', `${large.pages ?? 'no'} pages, peak memory ${large.peakMb.toFixed(0)} MB (packsmith + Chromium)${large.code === 0 ? '' : `; ${large.error}`}`],
+    poolRow(byPool, archive.circuits),
     ['check of a 40-circuit job, from the shell', `${(median(checks) * 1000).toFixed(0)} ms`, '', `median of ${checks.length}, max ${(Math.max(...checks) * 1000).toFixed(0)} ms`],
     ...(preview ? [[`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, painted, ${preview.saveToPage.length} saves; of which watch ${describeTimes(preview.watch)}, render ${describeTimes(preview.render)}, render end → page ${describeTimes(preview.browser)}; pages loaded again ${preview.reloads}`] as [string, string, string, string]] : []),
     ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
@@ -139,6 +143,17 @@ async function main() {
 }
 
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+/** The HTML stage in fresh nodes, as started and with --v8-pool-size=1: circuits/s of each way's median pass. */
+function poolRow(byPool: ReturnType<typeof htmlStageByPool>, circuits: number): [string, string, string, string] {
+  const done = (xs: (number | null)[]) => xs.filter((x): x is number => x !== null);
+  const a = done(byPool.asStarted);
+  const b = done(byPool.onePool);
+  const head = 'HTML stage, each pass in a fresh node';
+  if (a.length === 0 || b.length === 0) return [head, 'failed', '', `${a.length} and ${b.length} passes finished`];
+  const rate = (xs: number[]) => `${Math.round(circuits / median(xs))} circuits/s`;
+  return [head, rate(a), '', `with --v8-pool-size=1 ${rate(b)}, ratio of times ${(median(b) / median(a)).toFixed(2)} (docs/building-at-scale.md); medians of ${a.length} passes each way, alternated`];
+}
 
 async function chromiumVersion(path: string): Promise<string> {
   const b = await puppeteer.launch({ executablePath: path, headless: true, args: ['--no-sandbox'] });

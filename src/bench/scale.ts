@@ -23,6 +23,34 @@ export async function blankPrinter(): Promise<Printer> {
   return { print: async () => ({ pdf, refused: [] }), room: async () => {}, close: async () => {} };
 }
 
+const HTML_STAGE = fileURLToPath(new URL('./html.js', import.meta.url));
+
+/** The HTML stage's cold pass in a node of its own, started with these flags: its seconds, or null where it failed. */
+function freshHtmlStage(jobs: number, flags: string[]): number | null {
+  const r = spawnSync(process.execPath, [...flags, HTML_STAGE, '--jobs', String(jobs), '--json'], { encoding: 'utf8' });
+  if (r.status !== 0) return null;
+  try {
+    return (JSON.parse(r.stdout) as { seconds: number }).seconds;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The HTML stage of `jobs` generated jobs, each pass in a fresh node: as node starts, and with
+ * one V8 helper thread (`--v8-pool-size=1`, docs/building-at-scale.md), alternated `pairs` times.
+ * Each one's seconds, null where a pass failed.
+ */
+export function htmlStageByPool(jobs: number, pairs = 3): { asStarted: (number | null)[]; onePool: (number | null)[] } {
+  const asStarted: (number | null)[] = [];
+  const onePool: (number | null)[] = [];
+  for (let i = 0; i < pairs; i++) {
+    asStarted.push(freshHtmlStage(jobs, []));
+    onePool.push(freshHtmlStage(jobs, ['--v8-pool-size=1']));
+  }
+  return { asStarted, onePool };
+}
+
 /** One reading of a generated job changed, as a re-test would: the first circuit's Zs. */
 export function retest(jobDir: string): void {
   const file = join(jobDir, 'readings/2026-01-16.csv');
