@@ -24,8 +24,6 @@ import { remedy } from './remedy.js';
 import { worst } from './checks/result.js';
 import { STATUSES, type Assessment, type Check, type CheckResult, type CircuitAssessment, type CircuitContext, type Summary } from './types.js';
 
-const round = toPlaces;
-
 /**
  * The parts of a circuit's context that its length changes: the design table, the drop from the
  * origin and the design fault (`requiredS`: the time the circuit must meet, for a maker's Ia).
@@ -64,17 +62,17 @@ export function circuitContext(
     rules,
     readings,
     derived: {
-      iz_a: design.capacity.ok ? round(design.capacity.capacity.iz_a, 2) : null,
-      max_zs_ohm: mz ? round(mz.max_zs_ohm, 3) : null,
-      r1r2_expected_ohm: design.r1r2Cold ? round(design.r1r2Cold.ohm, 3) : null,
-      zs_design_ohm: design.zs ? round(design.zs.ohm, 3) : null,
-      vd_percent: design.vd ? round(design.vd.percent, 2) : null,
+      iz_a: design.capacity.ok ? toPlaces(design.capacity.capacity.iz_a, 2) : null,
+      max_zs_ohm: mz ? toPlaces(mz.max_zs_ohm, 3) : null,
+      r1r2_expected_ohm: design.r1r2Cold ? toPlaces(design.r1r2Cold.ohm, 3) : null,
+      zs_design_ohm: design.zs ? toPlaces(design.zs.ohm, 3) : null,
+      vd_percent: design.vd ? toPlaces(design.vd.percent, 2) : null,
       cpc_min_mm2: null,
       required_disconnect_s: required.seconds,
       fault_current_max_a: level ? significant(level.amps) : null,
-      zdb_ohm: design.source ? round(design.source.ohm, 3) : null,
-      pfc_ka: pfcKa === undefined ? null : round(pfcKa, 3),
-      vd_origin_percent: vdOrigin ? round(vdOrigin.percent, 2) : null,
+      zdb_ohm: design.source ? toPlaces(design.source.ohm, 3) : null,
+      pfc_ka: pfcKa === undefined ? null : toPlaces(pfcKa, 3),
+      vd_origin_percent: vdOrigin ? toPlaces(vdOrigin.percent, 2) : null,
       // the design fault where a design Zs is known, else the one a measured Zs gives
       ...(fault.known
         ? { fault_current_a: significant(fault.current_a), disconnect_s: fault.time_s === null ? null : significant(fault.time_s) }
@@ -90,7 +88,7 @@ export function circuitContext(
       : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s, and circuits.csv gives no device_ia_a from its maker`,
   };
   const energy = minimumFaultEnergy(ctx);
-  ctx.derived.cpc_min_mm2 = energy ? round(Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k, 2) : null;
+  ctx.derived.cpc_min_mm2 = energy ? toPlaces(Math.sqrt(energy.i2t_a2s) / kFor(circuit.conductor, circuit.insulation, circuit.cpc_in_cable).k, 2) : null;
   return ctx;
 }
 
