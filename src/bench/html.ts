@@ -1,7 +1,8 @@
 // The bench's HTML stage: every job loaded, validated, assessed, rendered through the built-in
 // templates and written, on one core. Also runnable alone, for a profile:
 //
-//   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N] [--json]
+//   node --cpu-prof dist/bench/html.js [--jobs 200] [--rounds N] [--json] [--projects DIR]
+//   (--projects: generate the jobs there, or find them there from an earlier run, unchanged)
 //   node dist/bench/html.js --jobs 240 --heap   (heap retained after 30, 60, 120, 240 jobs)
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -70,10 +71,10 @@ function retainedHeap(jobs: string[], htmlDir: string): void {
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' }, heap: { type: 'boolean' }, json: { type: 'boolean' } } });
+  const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, rounds: { type: 'string', default: '1' }, heap: { type: 'boolean' }, json: { type: 'boolean' }, projects: { type: 'string' } } });
   const root = mkdtempSync(join(tmpdir(), 'packsmith-bench-html-'));
   try {
-    const archive = generateArchive(join(root, 'projects'), Number(values.jobs));
+    const archive = generateArchive(values.projects ?? join(root, 'projects'), Number(values.jobs));
     if (values.heap) retainedHeap(archive.jobs, join(root, 'html'));
     else for (let i = 0; i < Number(values.rounds); i++) {
       const { seconds, cpuSeconds, renderSeconds, renderCpuSeconds } = htmlStage(archive.jobs, join(root, 'html'));

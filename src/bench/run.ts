@@ -110,7 +110,7 @@ async function main() {
   say(`${largeCircuits}-circuit job ${large.seconds.toFixed(1)} s, exit ${large.code}`);
   const checks = checkStart(root);
   // ---- the HTML stage in a fresh node, as started and with one V8 helper thread, alternated
-  const byPool = htmlStageByPool(count, 3);
+  const byPool = htmlStageByPool(root, count, 3);
   // ---- packsmith serve: a save of the biggest job until the open preview shows it
   const preview = quick ? null : await previewRefresh(archive.jobs, chromium);
   if (preview) say(`preview refresh ${describeTimes(preview.saveToPage)}`);

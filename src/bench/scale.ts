@@ -25,9 +25,9 @@ export async function blankPrinter(): Promise<Printer> {
 
 const HTML_STAGE = fileURLToPath(new URL('./html.js', import.meta.url));
 
-/** The HTML stage's cold pass in a node of its own, started with these flags: its seconds, or null where it failed. */
-function freshHtmlStage(jobs: number, flags: string[]): number | null {
-  const r = spawnSync(process.execPath, [...flags, HTML_STAGE, '--jobs', String(jobs), '--json'], { encoding: 'utf8' });
+/** The HTML stage's cold pass in a node of its own, started with these flags, on the jobs in `projects`: its seconds, or null where it failed. */
+function freshHtmlStage(projects: string, jobs: number, flags: string[]): number | null {
+  const r = spawnSync(process.execPath, [...flags, HTML_STAGE, '--jobs', String(jobs), '--json', '--projects', projects], { encoding: 'utf8' });
   if (r.status !== 0) return null;
   try {
     return (JSON.parse(r.stdout) as { seconds: number }).seconds;
@@ -39,14 +39,16 @@ function freshHtmlStage(jobs: number, flags: string[]): number | null {
 /**
  * The HTML stage of `jobs` generated jobs, each pass in a fresh node: as node starts, and with
  * one V8 helper thread (`--v8-pool-size=1`, docs/building-at-scale.md), alternated `pairs` times.
- * Each one's seconds, null where a pass failed.
+ * The jobs are generated once, under `root`, and found there by the later passes. Each pass's
+ * seconds, null where it failed.
  */
-export function htmlStageByPool(jobs: number, pairs = 3): { asStarted: (number | null)[]; onePool: (number | null)[] } {
+export function htmlStageByPool(root: string, jobs: number, pairs = 3): { asStarted: (number | null)[]; onePool: (number | null)[] } {
+  const projects = join(root, `html-stage-${jobs}`);
   const asStarted: (number | null)[] = [];
   const onePool: (number | null)[] = [];
   for (let i = 0; i < pairs; i++) {
-    asStarted.push(freshHtmlStage(jobs, []));
-    onePool.push(freshHtmlStage(jobs, ['--v8-pool-size=1']));
+    asStarted.push(freshHtmlStage(projects, jobs, []));
+    onePool.push(freshHtmlStage(projects, jobs, ['--v8-pool-size=1']));
   }
   return { asStarted, onePool };
 }
