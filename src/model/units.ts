@@ -161,8 +161,26 @@ function example(q: Quantity): string {
   return samples[q];
 }
 
+/** fmt's texts at 3 significant digits, by number (a Map's keys: +0 and -0 are one key, as fmt writes both "0"). */
+const WRITTEN3 = new Map<number, string>();
+const WRITTEN3_MAX = 8192;
+
 /** A number for messages and tables: `sig` significant digits, whole numbers kept whole. */
 export function fmt(n: number, sig = 3): string {
+  if (sig !== 3) return written(n, sig);
+  // A pack writes some 3,500 numbers, most of them a few dozen values over and over (0.4 s, 32 A,
+  // 230 V, a circuit's max Zs in each of its lines): each is written once and looked up after.
+  // Bounded, so a long run over many jobs holds under a megabyte of them.
+  let text = WRITTEN3.get(n);
+  if (text === undefined) {
+    if (WRITTEN3.size >= WRITTEN3_MAX) WRITTEN3.clear();
+    text = written(n, 3);
+    WRITTEN3.set(n, text);
+  }
+  return text;
+}
+
+function written(n: number, sig: number): string {
   if (!Number.isFinite(n)) return String(n);
   if (Math.abs(n) >= 10 ** sig) return String(Math.round(n));
   return String(toSignificant(n, sig));
