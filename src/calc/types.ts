@@ -88,8 +88,20 @@ export type Check = (ctx: CircuitContext) => CheckResult;
  * A check prepared to judge one circuit at many lengths (trial-context.ts). It may also say that
  * it passes at no length at all, given the circuit at the shortest length tried: where a part of
  * the check that the length does not change already keeps it from passing.
+ *
+ * Or that it only worsens as the run grows (`worsensWithLength`): where it passes at a length it
+ * passes at every shorter one, and where it fails at a length it fails at every longer one (design
+ * Zs and the voltage drop: R1+R2 and the drop grow with the length, the limits do not). Then a
+ * length between one that met it and one that did not is all a search needs to judge, and
+ * `margin` (how far inside its limit the circuit is at a length, in the check's own numbers, which
+ * the length changes in proportion) points the search at the length where it turns. The margin
+ * only says where to look: the check itself judges there.
  */
-export type LengthCheck = Check & { passesAtNoLength?: (shortest: CircuitContext) => boolean };
+export type LengthCheck = Check & {
+  passesAtNoLength?: (shortest: CircuitContext) => boolean;
+  readonly worsensWithLength?: true;
+  readonly margin?: (ctx: CircuitContext) => number | null;
+};
 
 export interface CircuitAssessment {
   board: string;

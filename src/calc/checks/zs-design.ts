@@ -1,12 +1,12 @@
 // Design Zs (Ze or Zdb + R1+R2 at operating temperature) against the loop impedance the fault
 // protection allows: the max Zs that makes the overcurrent device operate within the required
 // time, or on a TT supply with an RCD, 50 V / IΔn (see fault-protection.ts).
-import type { Check } from '../types.js';
+import type { CircuitContext, LengthCheck } from '../types.js';
 import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
 import { notVerified, result } from './result.js';
 
-export const zsDesign: Check = (ctx) => {
+const judge = (ctx: CircuitContext) => {
   const id = 'zs-design';
   const { design } = ctx;
   if (!design.source) return notVerified(id, 'no Ze for the supply and no Zdb for the board: the design Zs cannot be found');
@@ -24,3 +24,16 @@ export const zsDesign: Check = (ctx) => {
     value: toPlaces(zs.ohm, 3), limit: toPlaces(limit, 3), unit: 'ohm',
   });
 };
+
+/**
+ * Design Zs only worsens as the run grows: R1+R2 grows with the length and the limit does not. Its
+ * margin is the limit less the design Zs, in ohms (see LengthCheck).
+ */
+export const zsDesign: LengthCheck = Object.assign(judge, {
+  worsensWithLength: true as const,
+  margin: (ctx: CircuitContext): number | null => {
+    const zs = ctx.design.source ? ctx.design.zs : null;
+    const limit = zs ? faultProtection(ctx).limit_ohm : null;
+    return zs && limit !== null ? limit - zs.ohm : null;
+  },
+});

@@ -2,12 +2,15 @@
 // the checks given — by default design Zs, voltage drop from the origin and the adiabatic check.
 // Solved by running those very checks on the circuit at trial lengths, never by a second formula:
 // from the circuit's own length, steps of 50 % up (while it passes) or down (until it passes)
-// bracket the boundary, and bisection finds it. Where the steps down find no passing length (a
-// short run can fail the adiabatic check on a large fault current), a grid from 0.5 m to 5 km is
-// walked up from the first passing length instead. A check that itself says it passes at no
-// length (the adiabatic check, where its part at the board's largest fault current, which no
-// length changes, does not pass) is not walked. Where no length passes, null, and `whyNone`
-// says which check no length meets and at what status (never a bare "none").
+// bracket the boundary, and bisection finds it. A check that only worsens with the length (design
+// Zs, the drop) is judged once on each side of where its margin says it turns; every other length
+// the search asks about is then known from those two (see LengthCheck), so the search ends where
+// judging every length would have ended it, at the same 0.1 m. Where the steps down find no
+// passing length (a short run can fail the adiabatic check on a large fault current), a grid
+// from 0.5 m to 5 km is walked up from the first passing length instead. A check that itself says
+// it passes at no length (the adiabatic check, where its part at the board's largest fault
+// current, which no length changes, does not pass) is not walked. Where no length passes, null,
+// and `whyNone` says which check no length meets and at what status (never a bare "none").
 import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
 import { fmt } from '../../model/units.js';
 import { adiabatic } from '../checks/adiabatic.js';
@@ -45,6 +48,12 @@ export class Trials {
   private lastFailed: Check | null = null;
   /** each check asked whether it passes at no length, and its answer */
   private readonly nowhere = new Map<Check, boolean>();
+  /**
+   * For a check that only worsens with the length, and each way of meeting it: the longest length
+   * judged to meet it, the shortest judged not to, and whether its margin has been asked where it
+   * turns (see aim).
+   */
+  private readonly known = new Map<Check, Map<Meets, { meets: number; not: number; aimed: boolean }>>();
 
   constructor(private readonly circuit: TrialContext) {}
 
@@ -96,16 +105,77 @@ export class Trials {
    */
   meetsAll(checks: readonly Check[], lengthM: number, meets: Meets): boolean {
     const first = this.lastFailed !== null && checks.includes(this.lastFailed) ? this.lastFailed : null;
-    if (first && !meets(this.judge(first, lengthM).status)) return false;
+    if (first && !this.meetsOne(first, lengthM, meets)) return false;
     for (const c of checks) {
-      if (c !== first && !meets(this.judge(c, lengthM).status)) {
+      if (c !== first && !this.meetsOne(c, lengthM, meets)) {
         this.lastFailed = c;
         return false;
       }
     }
     return true;
   }
+
+  /**
+   * Whether this length meets the check. For a check that only worsens with the length, a length
+   * no longer than one judged to meet it meets it, and one no shorter than one judged not to does
+   * not (see LengthCheck): only a length between the two is judged.
+   */
+  meetsOne(check: Check, lengthM: number, meets: Meets): boolean {
+    if (!this.circuit.check(check).worsensWithLength) return meets(this.judge(check, lengthM).status);
+    const k = this.bounds(check, meets);
+    if (lengthM <= k.meets) return true;
+    if (lengthM >= k.not) return false;
+    const ok = meets(this.judge(check, lengthM).status);
+    if (ok) k.meets = lengthM;
+    else k.not = lengthM;
+    return ok;
+  }
+
+  /**
+   * Before a search over lengths: each check that only worsens with the length and gives its
+   * margin is judged just short of and just past where the margin, taken from the circuit's own
+   * length and 5 km, turns; lengths elsewhere are then known without judging (see meetsOne).
+   * Where the margin does not say (no margin, or one the length does not change), nothing is
+   * judged here and the search judges as it goes.
+   */
+  aim(checks: readonly Check[], ownLengthM: number, meets: Meets): void {
+    for (const check of checks) {
+      const { margin, worsensWithLength } = this.circuit.check(check);
+      if (!margin || !worsensWithLength) continue;
+      const k = this.bounds(check, meets);
+      if (k.aimed) continue;
+      k.aimed = true;
+      const near = ownLengthM === TO_M ? FROM_M : ownLengthM;
+      const a = numbersOnly(() => margin(this.at(near)));
+      const b = numbersOnly(() => margin(this.at(TO_M)));
+      if (a === null || b === null || a === b) continue;
+      const turns = near + (a * (TO_M - near)) / (a - b);
+      if (!(turns > FROM_M && turns < TO_M)) continue;
+      this.meetsOne(check, turns * (1 - AIM), meets);
+      this.meetsOne(check, turns * (1 + AIM), meets);
+    }
+  }
+
+  private bounds(check: Check, meets: Meets) {
+    let byMeets = this.known.get(check);
+    if (!byMeets) this.known.set(check, (byMeets = new Map()));
+    let k = byMeets.get(meets);
+    if (!k) byMeets.set(meets, (k = { meets: -Infinity, not: Infinity, aimed: false }));
+    return k;
+  }
+
+  /** The check's id, the same at every length: from a result already judged, else judged at 0.5 m. */
+  idOf(check: Check): string {
+    for (const t of this.seen.values()) {
+      const r = t.results.get(check);
+      if (r) return r.id;
+    }
+    return this.judge(check, FROM_M).id;
+  }
 }
+
+/** How far either side of where a margin turns `aim` judges: a millionth of the length, well within the 0.1 m a run is given to. */
+const AIM = 1e-6;
 
 /** A length found here, as found (to 0.1 m, rounded down): never rounded up by significant figures. */
 export const metres = (m: number): string => `${m} m`;
@@ -171,6 +241,7 @@ type Bracket = [number, number] | 'beyond' | null;
 function bracketOf(trials: Trials, ownLengthM: number, checks: readonly Check[], meets: Meets): Bracket {
   // a check that passes nowhere is met nowhere where only a pass will do
   if (meets === PASSES && trials.passesNowhere(checks)) return null;
+  trials.aim(checks, ownLengthM, meets);
   const passes = (l: number) => trials.meetsAll(checks, l, meets);
   const own = Math.min(TO_M, Math.max(FROM_M, ownLengthM));
   if (passes(own)) {
@@ -207,7 +278,7 @@ function runWithin(trials: Trials, found: Bracket, checks: readonly Check[], mee
   // two checks can turn at the same length (for a circuit-breaker, design Zs and the adiabatic
   // check both turn where the fault current falls to the one that trips it at once)
   const next = Math.min(TO_M, (Math.floor(a * 10) + 1) / 10);
-  const limited = checks.filter((c) => !meets(trials.judge(c, b).status) || !meets(trials.judge(c, next).status)).map((c) => trials.judge(c, b).id);
+  const limited = checks.filter((c) => !trials.meetsOne(c, b, meets) || !trials.meetsOne(c, next, meets)).map((c) => trials.idOf(c));
   return { length_m: Math.floor(a * 10) / 10, beyond: false, limited_by: limited };
 }
 
