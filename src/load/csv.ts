@@ -5,6 +5,7 @@
 // write in many locales) is read with that separator.
 import { parse } from 'csv-parse/sync';
 import type { LocatedError, RawCell, RawTable } from './raw.js';
+import { setOwn } from './own-field.js';
 
 type Parsed = { record: string[]; info: { lines: number } };
 
@@ -222,7 +223,8 @@ export function readCsv(file: string, text: string): { table: RawTable; errors: 
     for (let i = 0; i < header.length; i++) {
       const h = header[i]!;
       const text = (record[i] ?? '').trim();
-      if (text !== '' && h.text !== '') cells[h.text] = { text, column: h.column };
+      // a header "__proto__" is a column like any other, never the prototype its cells would lend fields to
+      if (text !== '' && h.text !== '') setOwn(cells, h.text, { text, column: h.column });
     }
     rows.push({ row: line, cells });
   }

@@ -7,7 +7,7 @@
 import type { LocatedError, RawCell, RawTable } from '../load/raw.js';
 import { IGNORE_COLUMN, MEASURED, READING_COLUMNS, type MeasuredField } from './schema.js';
 import { QUANTITIES, unitFits } from './units.js';
-import { setOwn } from './own-field.js';
+import { setOwn } from '../load/own-field.js';
 
 export interface MappedTable {
   /** the table with its headers renamed to packsmith's columns and ignored columns removed */

@@ -11,7 +11,7 @@ import { mapColumns } from './columns.js';
 import { circuitKey, mergeSessions, type CircuitReadings, type SessionRow } from './readings.js';
 import { ratingProblem } from './device-rating.js';
 import { deviceHint } from './device-hint.js';
-import { setOwn } from './own-field.js';
+import { setOwn } from '../load/own-field.js';
 
 export interface CircuitRecord extends Circuit {
   /** line of the circuit in circuits.csv */
