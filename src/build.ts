@@ -146,6 +146,16 @@ function unchanged(dir: string, target: string, stamp: Stamp | null, archive: st
   return upToDate(target, stamp, want) ? stamp : null;
 }
 
+/**
+ * Writes the text and gives the SHA-256 of the bytes written: encoded to UTF-8 once for both (a
+ * pack's HTML is hundreds of kilobytes), and the bytes let go on return, before any print waits.
+ */
+function writeHashed(path: string, text: string): string {
+  const bytes = Buffer.from(text);
+  writeReplacing(path, bytes);
+  return sha256(bytes);
+}
+
 export async function build(opts: BuildOptions): Promise<BuildResult> {
   const log = opts.log ?? ((l: string) => process.stderr.write(`${l}\n`));
   const out = claimOut(opts.out);
@@ -229,8 +239,7 @@ export async function build(opts: BuildOptions): Promise<BuildResult> {
       rmSync(join(target, STAMP_FILE), { force: true }); // a draft half rewritten is never taken as up to date
       look.stamps.wrote(target, null);
       const htmlPath = join(target, 'pack.html');
-      writeReplacing(htmlPath, pack.html);
-      const outputs: Record<string, string> = { 'pack.html': sha256(pack.html) };
+      const outputs: Record<string, string> = { 'pack.html': writeHashed(htmlPath, pack.html) };
       const built = add(result.built, { job: project.name, html: htmlPath, pdf: null as string | null }, i);
       const source = { dir: job.raw.dir, theme: ownTheme(project, job.raw.dir), paper: project.file.paper ?? null };
       // what the stamp records of the job, taken now: the closures below, which live until the

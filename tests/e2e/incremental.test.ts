@@ -1,6 +1,7 @@
 // Incremental builds and the archive site, with the compiled CLI.
 import { afterAll, describe, expect, it } from 'vitest';
 import { chmodSync, existsSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
 import { dirname, join } from 'node:path';
 import { run } from '../helpers/cli.js';
 import { copyFixture, edit, removeTree, scratch } from '../helpers/archive.js';
@@ -13,6 +14,7 @@ const out = join(root, 'out');
 const build = (...more: string[]) => run(['build', a, f, '--out', out, ...more]);
 const stamp = (job: string) => `${statSync(join(out, job, 'draft/pack.pdf')).mtimeMs}:${statSync(join(out, job, 'draft/pack.html')).mtimeMs}`;
 const rebuilt = (r: { stdout: string }) => ['archive-job', 'failing-job'].filter((j) => r.stdout.includes(`${j}: ${join(out, j, 'draft/pack.pdf')}`));
+const sha = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
 const kept = (r: { stdout: string }) => [...r.stdout.matchAll(/^([\w-]+): unchanged/gm)].map((m) => m[1]);
 
 describe('packsmith build, incrementally', () => {
@@ -23,6 +25,12 @@ describe('packsmith build, incrementally', () => {
     expect(r.code).toBe(0);
     expect(rebuilt(r)).toEqual(['archive-job', 'failing-job']);
     before = [stamp('archive-job'), stamp('failing-job')];
+    // the draft's record names each file by the SHA-256 of its bytes as written (FIPS 180-4)
+    for (const job of ['archive-job', 'failing-job']) {
+      const draft = join(out, job, 'draft');
+      const { outputs } = JSON.parse(readFileSync(join(draft, 'build.json'), 'utf8')) as { outputs: Record<string, string> };
+      expect(outputs).toEqual({ 'pack.html': sha(join(draft, 'pack.html')), 'pack.pdf': sha(join(draft, 'pack.pdf')) });
+    }
   });
 
   it('skips every job when nothing changed, leaving its files as they were', async () => {
