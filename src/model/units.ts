@@ -240,6 +240,9 @@ export function toPlaces(n: number, places: number): number {
   return (frac > 0.5 ? whole + 1 : whole) / scale;
 }
 
+/** toPlaces, with null (a value not known) kept null. */
+export const toPlacesOrNull = (n: number | null, places: number): number | null => (n === null ? null : toPlaces(n, places));
+
 /** Whether a unit (as written in a column header) is one of the quantity's. */
 export function unitFits(unit: string, q: Quantity): boolean {
   return QUANTITIES[q].units[unit.replace(/\s+/g, '')] !== undefined;
