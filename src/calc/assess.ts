@@ -111,17 +111,22 @@ export function assess(project: Project): Assessment {
   const rules = resolveRules(file.supply, file.rules, file.premises);
   const strict = strictRules(rules);
   const departures = ruleDepartures(rules, project.circuits);
+  // each rule-level departure with the circuits it bears on, as a set: a job of 20,000 circuits
+  // would otherwise search a list of 20,000 for each of them
+  const ruleLevel = departures.map((d) => ({ departure: d, on: new Set(d.circuits) }));
   const sources = carry(file.boards, project.circuits, file.supply, rules.u0_v);
   const fed = fedBoards(file.boards);
   const rowsOf = rowsByCircuit(project.rows);
+  const boardById = new Map(file.boards.map((b) => [b.id, b]));
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
-    const board = file.boards.find((b) => b.id === circuit.board)!;
+    const board = boardById.get(circuit.board)!;
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
     const site = siteOf(circuit, sources, fed, project.circuits);
     const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
     const own = circuitDeparture(circuit, requiredDisconnection(file.supply.earthing, strict.u0_v, { ...circuit, disconnect_s: undefined }, strict, site.feeds?.board).seconds);
     if (own) departures.push(own);
-    const bearing = [...departures.filter((d) => d.rule !== 'disconnect_s' && d.circuits.includes(`${circuit.board}/${circuit.ref}`)), ...(own ? [own] : [])];
+    const key = `${circuit.board}/${circuit.ref}`;
+    const bearing = [...ruleLevel.filter((r) => r.on.has(key)).map((r) => r.departure), ...(own ? [own] : [])];
     const strictCircuit = own ? { ...circuit, disconnect_s: undefined } : circuit;
     const strictCtx = bearing.length > 0 ? circuitContext(strictCircuit, board, file.supply, strict, readings, site) : ctx;
     // the longest run and what would pass are found under the rule set's own values

@@ -65,6 +65,9 @@ function parseYaml<S extends z.ZodType>(doc: RawYaml, schema: S): { data: z.outp
   return { data: null, errors };
 }
 
+/** A row the schema accepted: its line, its values, and its cells as read (for the columns of later findings). */
+type ParsedRow<S extends z.ZodType> = { row: number; values: z.output<S>; cells: RawRow['cells'] };
+
 /** Parse every row of a table with a zod schema; unknown and missing columns reported once. */
 function tableRows<S extends z.ZodType>(
   table: RawTable,
@@ -74,7 +77,7 @@ function tableRows<S extends z.ZodType>(
   errors: LocatedError[],
   hint = '',
   cellHint: (field: string, text: string) => string = () => '',
-): { row: number; values: z.output<S> }[] {
+): ParsedRow<S>[] {
   const headerRow = 1;
   const names = new Set(table.header.map((h) => h.text));
   for (const h of table.header) {
@@ -86,11 +89,11 @@ function tableRows<S extends z.ZodType>(
   if (missing.length > 0) {
     errors.push({ file: table.file, row: headerRow, column: 1, message: `missing column${missing.length > 1 ? 's' : ''} ${missing.map((m) => `"${m}"`).join(', ')}${hint}` });
   }
-  const out: { row: number; values: z.output<S> }[] = [];
+  const out: ParsedRow<S>[] = [];
   for (const r of table.rows) {
     const parsed = schema.safeParse(cellTexts(r.cells));
     if (parsed.success) {
-      out.push({ row: r.row, values: parsed.data });
+      out.push({ row: r.row, values: parsed.data, cells: r.cells });
       continue;
     }
     for (const issue of parsed.error.issues) {
@@ -162,11 +165,10 @@ export function validate(job: RawJob, circuitRules: readonly CircuitRule[] = [],
       (c) => { const m = ratingProblem(c.device, c.rating_a); return m ? { field: 'rating_a', message: m } : null; },
       ...circuitRules,
     ];
-    for (const { row, values } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors, '', circuitHint)) {
+    for (const { row, values, cells } of tableRows(table, CircuitSchema, CIRCUIT_COLUMNS, CIRCUIT_REQUIRED, errors, '', circuitHint)) {
       const problems = rules.map((rule) => rule(values, file)).filter((p) => p !== null);
-      const cells = table.rows.find((r) => r.row === row)?.cells;
       for (const p of problems) {
-        const column = cells?.[p.field]?.column ?? table.header.find((h) => h.text === p.field)?.column ?? 1;
+        const column = cells[p.field]?.column ?? table.header.find((h) => h.text === p.field)?.column ?? 1;
         errors.push({ file: table.file, row, column, message: `${p.field}: ${p.message}` });
       }
       // the parsed row itself becomes the record (zod made it for this row alone; a copy of its
