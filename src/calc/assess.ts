@@ -14,7 +14,7 @@ import { breakingLevel } from './fault-level.js';
 import { rowsByCircuit, stages, traced } from './history.js';
 import { requiredDisconnection, resolveRules, type Rules } from './rules.js';
 import { circuitDeparture, ruleDepartures, strictRules, type Departure } from './departures.js';
-import { boardAsSeen, designSource, siteOf, type CircuitSite } from './tree/site.js';
+import { boardAsSeen, designSource, largestOnBoards, siteOf, type CircuitSite } from './tree/site.js';
 import { originDrop } from './tree/origin.js';
 import { carry } from './tree/carry.js';
 import { fedBoards } from './tree/build.js';
@@ -118,10 +118,11 @@ export function assess(project: Project): Assessment {
   const fed = fedBoards(file.boards);
   const rowsOf = rowsByCircuit(project.rows);
   const boardById = new Map(file.boards.map((b) => [b.id, b]));
+  const largest = largestOnBoards(project.circuits);
   const circuits: CircuitAssessment[] = project.circuits.map((circuit) => {
     const board = boardById.get(circuit.board)!;
     const readings = project.readings.get(circuitKey(circuit.board, circuit.ref)) ?? {};
-    const site = siteOf(circuit, sources, fed, project.circuits);
+    const site = siteOf(circuit, sources, fed, largest);
     const ctx = circuitContext(circuit, board, file.supply, rules, readings, site);
     const own = circuitDeparture(circuit, requiredDisconnection(file.supply.earthing, strict.u0_v, { ...circuit, disconnect_s: undefined }, strict, site.feeds?.board).seconds);
     if (own) departures.push(own);

@@ -7,6 +7,7 @@ import { assess } from '../../src/calc/assess.js';
 import { carry } from '../../src/calc/tree/carry.js';
 import { boardQuery } from '../../src/calc/tree/query.js';
 import { boardOrder, parseFeed, treeProblems } from '../../src/calc/tree/build.js';
+import { largestOnBoards } from '../../src/calc/tree/site.js';
 import { resolveRules } from '../../src/calc/rules.js';
 import { CircuitSchema, ProjectFileSchema } from '../../src/model/schema.js';
 import type { Project } from '../../src/model/validate.js';
@@ -265,5 +266,25 @@ describe('property: lengthening a feeding circuit never lowers a downstream circ
         });
       },
     ), { numRuns: 40 });
+  });
+});
+
+describe('the largest device on each board, found in one pass', () => {
+  it('is the highest rating on the board, the first of equal ones in the order of circuits.csv, against a search of every circuit for each board', () => {
+    const boards = fc.constantFrom('DB1', 'DB2', 'DB3');
+    const rows = fc.array(fc.record({ board: boards, rating: fc.constantFrom(6, 10, 16, 20, 32) }), { maxLength: 40 });
+    fc.assert(fc.property(rows, (rs) => {
+      const circuits = rs.map((r, i) => CircuitSchema.parse({
+        board: r.board, ref: String(i + 1), description: 'x', kind: 'power', ib_a: '1', device: 'mcb:B', rating_a: String(r.rating),
+        live_mm2: '2.5', cpc_mm2: '1.5', length_m: '10', method: 'C',
+      }));
+      const top = largestOnBoards(circuits);
+      for (const b of ['DB1', 'DB2', 'DB3']) {
+        // the search it replaces: every circuit of the board, the first kept unless a later one is rated higher
+        const searched = circuits.filter((c) => c.board === b).reduce<(typeof circuits)[number] | null>((a, c) => (a === null || c.rating_a > a.rating_a ? c : a), null);
+        if ((top.get(b) ?? null) !== searched) return false;
+      }
+      return true;
+    }), { numRuns: 300 });
   });
 });

@@ -2,14 +2,16 @@
 // them, every reading with its verdict, open items first, user text escaped.
 import { describe, expect, it } from 'vitest';
 import Handlebars from 'handlebars';
+import fc from 'fast-check';
 import { loadJob } from '../../src/job.js';
 import { buildView, DERIVED_FIELDS, worstStatus } from '../../src/render/view.js';
-import { RESULT_COLUMNS } from '../../src/render/sections/schedules.js';
+import { circuitsByBoard, RESULT_COLUMNS } from '../../src/render/sections/schedules.js';
 import { renderPack, renderPackFiles } from '../../src/render/pack.js';
 import { createEngine } from '../../src/render/engine.js';
 import { snippetRequest } from '../../src/render/snippets.js';
 import { checkLabel, TEST_CHECKS } from '../../src/render/labels.js';
 import type { Assessment } from '../../src/calc/types.js';
+import type { Project } from '../../src/model/validate.js';
 
 function job(dir: string) {
   const j = loadJob(dir);
@@ -286,5 +288,20 @@ describe('the curve snippet request', () => {
     const o = snippetRequest(circuit('1'), { ...derived('1'), fault_current_a: 410 }, over, assessment.rules);
     expect(o.request.faultCurrentA).toBeNull();
     expect(o.caption).toMatch(/over range/);
+  });
+});
+
+describe('the circuits of each board, grouped in one pass', () => {
+  it('are those a filter of every circuit gives, in the order of circuits.csv, and none for a board without circuits', () => {
+    const rows = fc.array(fc.constantFrom('DB1', 'DB2', 'DB3'), { maxLength: 40 });
+    fc.assert(fc.property(rows, (boards) => {
+      const circuits = boards.map((board, i) => ({ board, ref: String(i + 1) })) as unknown as Project['circuits'];
+      const on = circuitsByBoard({ circuits });
+      return ['DB1', 'DB2', 'DB3', 'DB9'].every((b) => {
+        const got = on(b);
+        const want = circuits.filter((c) => c.board === b);
+        return got.length === want.length && got.every((c, i) => c === want[i]);
+      });
+    }), { numRuns: 300 });
   });
 });

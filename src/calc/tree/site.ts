@@ -20,14 +20,26 @@ export interface CircuitSite {
   feeds: FedBoard | null;
 }
 
+/**
+ * Each board's largest device by rating (the first of equal ones, in the order of circuits.csv),
+ * found in one pass: a search of every circuit for each feeding circuit grows with their product.
+ */
+export function largestOnBoards(circuits: readonly Circuit[]): ReadonlyMap<string, Circuit> {
+  const top = new Map<string, Circuit>();
+  for (const c of circuits) {
+    const a = top.get(c.board);
+    if (a === undefined || c.rating_a > a.rating_a) top.set(c.board, c);
+  }
+  return top;
+}
+
 export function siteOf(
-  circuit: Circuit, sources: ReadonlyMap<string, BoardSource>, fed: ReadonlyMap<string, string>, circuits: readonly Circuit[],
+  circuit: Circuit, sources: ReadonlyMap<string, BoardSource>, fed: ReadonlyMap<string, string>, largest: ReadonlyMap<string, Circuit>,
 ): CircuitSite {
   const source = sources.get(circuit.board)!;
   const fedId = fed.get(`${circuit.board}/${circuit.ref}`);
   if (fedId === undefined) return { source, feeds: null };
-  const on = circuits.filter((c) => c.board === fedId);
-  const top = on.reduce<Circuit | null>((a, c) => (a === null || c.rating_a > a.rating_a ? c : a), null);
+  const top = largest.get(fedId) ?? null;
   return {
     source,
     feeds: { board: fedId, source: sources.get(fedId)!, largest: top ? { ref: top.ref, code: top.device, rating_a: top.rating_a } : null },

@@ -8,7 +8,7 @@ import { checkLabel, plainWords, sentence } from '../labels.js';
 import { look, worstStatus } from '../status.js';
 import { comparison, historyLine } from '../values.js';
 import { circuitSnippet, snippetRequest } from '../snippets.js';
-import { anchor, circuitAnchor } from './schedules.js';
+import { anchor, circuitAnchor, circuitsByBoard } from './schedules.js';
 
 /** The text before its first ": " (all of it where there is none). */
 const beforeColon = (text: string): string => {
@@ -28,11 +28,12 @@ export function checkLine(k: CheckResult) {
 type CheckView = ReturnType<typeof checkLine>;
 
 export function appendixBoards(project: Project, assessment: Assessment, byCircuit: Map<string, CircuitAssessment>) {
+  const circuitsOn = circuitsByBoard(project);
   return project.file.boards.map((b) => ({
     id: b.id,
     location: b.location ?? null,
     anchor: anchor('appendix', b.id),
-    circuits: project.circuits.filter((c) => c.board === b.id).map((c) => {
+    circuits: circuitsOn(b.id).map((c) => {
       const key = circuitKey(c.board, c.ref);
       const a = byCircuit.get(key)!;
       const snippet = snippetRequest(c, a.derived, project.readings.get(key) ?? {}, assessment.rules, a.feeds);

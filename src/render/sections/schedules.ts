@@ -141,11 +141,27 @@ function designRow(c: CircuitRecord, a: CircuitAssessment) {
   };
 }
 
+/**
+ * The circuits of each board, in the order of circuits.csv: grouped in one pass, where a filter of
+ * every circuit for each board grows with boards × circuits (500 boards of a 20,000-circuit job:
+ * ten million tests, a sixth of its render).
+ */
+export function circuitsByBoard(project: Pick<Project, 'circuits'>): (board: string) => CircuitRecord[] {
+  const on = new Map<string, CircuitRecord[]>();
+  for (const c of project.circuits) {
+    const list = on.get(c.board);
+    if (list) list.push(c);
+    else on.set(c.board, [c]);
+  }
+  return (board) => on.get(board) ?? [];
+}
+
 export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
+  const circuitsOn = circuitsByBoard(project);
   return project.file.boards.map((b) => {
     const notes: Footnote[] = [];
     // each circuit with its assessment and readings, looked up once
-    const circuits = project.circuits.filter((c) => c.board === b.id).map((c) => {
+    const circuits = circuitsOn(b.id).map((c) => {
       const key = circuitKey(c.board, c.ref);
       return { c, a: byCircuit.get(key)!, readings: project.readings.get(key) };
     });
