@@ -79,7 +79,7 @@ export function draftPack(project: Project, assessment: Assessment, latest: Issu
   const date = lastTestDate(project.sessions, project.file.dates.completed);
   const label = { label: 'DRAFT', draft: true, date };
   const data = dataBytes(packData(project, assessment, VERSION, null));
-  const since = changesSince(latest, JSON.parse(data), null);
+  const since = changesSince(latest, data, null);
   if (!since.ok) log(`${project.name}: no changes section in the draft: ${since.why} (run packsmith verify)`);
   return { date, label, data, pack: packFiles(project, assessment, label, since.ok ? since.changes : null, style) };
 }

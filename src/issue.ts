@@ -190,7 +190,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const signedWith = signing.key ? fingerprint(signing.key) : null;
       const label = { label: `Revision ${n}`, draft: false, date: opts.date, acceptedOpenItems: accepted, keyFingerprint: signedWith };
       const data = dataBytes(packData(project, assessment, VERSION, info));
-      const since = changesSince(latest, JSON.parse(data), { by: info.by, date: info.date, reason: info.reason });
+      const since = changesSince(latest, data, { by: info.by, date: info.date, reason: info.reason });
       if (!since.ok) return refuse(1, `cannot compare with Revision ${latest?.number}: ${since.why}; run packsmith verify`);
       const pack = packFiles(project, assessment, label, since.changes, style);
       const html = pack.html;

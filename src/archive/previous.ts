@@ -23,10 +23,15 @@ export function revisionData(rev: IssuedRevision): { ok: true; data: PackData & 
   return { ok: true, data: parsed.data as PackData & { revision: RevisionInfo } };
 }
 
-/** Changes since `latest` (null when none was issued: a first issue, or a draft with nothing to compare). */
-export function changesSince(latest: IssuedRevision | null, next: PackData, issued: Changes['issued']): { ok: true; changes: Changes | null } | { ok: false; why: string } {
+/**
+ * Changes since `latest` (null when none was issued: a first issue, or a draft with nothing to
+ * compare). `next` is the data.json text being written: compared as the next revision will read it
+ * back, and read only where there is a revision to compare it with (a large job's is hundreds of
+ * megabytes).
+ */
+export function changesSince(latest: IssuedRevision | null, next: string, issued: Changes['issued']): { ok: true; changes: Changes | null } | { ok: false; why: string } {
   if (!latest) return { ok: true, changes: issued ? firstIssue(issued) : null };
   const prev = revisionData(latest);
   if (!prev.ok) return prev;
-  return { ok: true, changes: diffData(prev.data, next, issued) };
+  return { ok: true, changes: diffData(prev.data, JSON.parse(next) as PackData, issued) };
 }
