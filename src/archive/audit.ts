@@ -47,8 +47,9 @@ export function audit(scope: AuditScope, publicKey: KeyObject | null): Audit {
   const jobs = [...inspect].sort().map((j) => inspectJob(scope.archive, j, opts));
   for (const j of jobs) findings.push(...j.findings.map(at));
   if (scope.withRecords) {
+    const byName = new Map(jobs.map((j) => [j.job, j])); // one look-up per job folder, not a search of every job
     for (const dir of scope.jobDirs) {
-      const j = jobs.find((x) => x.job === basename(dir))!;
+      const j = byName.get(basename(dir))!;
       findings.push(...checkRecord(dir, dir, j, join(scope.archive, j.job)).findings);
     }
     if (scope.complete) {
