@@ -1,16 +1,21 @@
 // Voltage drop from the origin of the installation against the rule set's limit (lighting 3 %,
 // other uses 5 %; IEC 60364-5-52 Annex G, Table G.52.1, limits measured from the origin): the
 // circuit's own drop plus that of every feeding circuit between the origin and its board.
-import type { CircuitContext, LengthCheck } from '../types.js';
+import type { CircuitContext, LengthCheck, VdOrigin } from '../types.js';
+import type { VoltageDrop } from '../design/voltage-drop.js';
 import { notVerified, result } from './result.js';
 import { originWords } from '../tree/origin.js';
 import { toPlaces } from '../../model/units.js';
+
+/** The drop from the origin: the circuit's own where the context carries none, null where a feeding circuit's is not known. */
+const fromOrigin = (own: VoltageDrop, vdOrigin: CircuitContext['vdOrigin']): VdOrigin | null =>
+  (vdOrigin === undefined ? { percent: own.percent, legs: [] } : vdOrigin);
 
 const judge = ({ design, vdOrigin }: CircuitContext) => {
   const id = 'voltage-drop';
   if (!design.vd) return notVerified(id, 'no conductor resistance for this size and material in IEC 60228');
   const own = design.vd;
-  const origin = vdOrigin === undefined ? { percent: own.percent, legs: [] } : vdOrigin;
+  const origin = fromOrigin(own, vdOrigin);
   if (origin === null) return notVerified(id, () => `${own.basis}; the drop of a feeding circuit between the origin and this board is not known`);
   const limit = design.vdLimit.percent;
   const ok = origin.percent <= limit;
@@ -26,7 +31,7 @@ const judge = ({ design, vdOrigin }: CircuitContext) => {
 export const voltageDropCheck: LengthCheck = Object.assign(judge, {
   worsensWithLength: true as const,
   margin: ({ design, vdOrigin }: CircuitContext): number | null => {
-    const origin = vdOrigin === undefined ? design.vd : vdOrigin;
-    return design.vd && origin ? design.vdLimit.percent - origin.percent : null;
+    const origin = design.vd && fromOrigin(design.vd, vdOrigin);
+    return origin ? design.vdLimit.percent - origin.percent : null;
   },
 });

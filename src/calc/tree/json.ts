@@ -5,7 +5,6 @@ import { significant, toPlacesOrNull } from '../../model/units.js';
 import { feedKey } from './build.js';
 import type { BoardSource } from './carry.js';
 
-
 export function boardJson(b: BoardSource) {
   return {
     id: b.board,

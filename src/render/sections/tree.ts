@@ -4,7 +4,6 @@ import type { Assessment } from '../../calc/types.js';
 import { anchor } from './schedules.js';
 import { toPlacesOrNull } from '../../model/units.js';
 
-
 export function treeView(id: string, assessment: Pick<Assessment, 'boards'>) {
   const all = assessment.boards ?? [];
   const s = all.find((b) => b.board === id);
