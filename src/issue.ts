@@ -21,7 +21,7 @@ import { recordEntry, writeRecord, revisionDirName, type RecordEntry } from './a
 import { checkRecord } from './archive/record.js';
 import { jobArchiveSettings } from './archive/location.js';
 import { fingerprint, loadPrivateKey, loadPublicKey, signatureBytes, SIGNATURE_FILE } from './archive/sign.js';
-import type { KeyObject } from 'node:crypto';
+import { createHash, type KeyObject } from 'node:crypto';
 import { openStaging } from './archive/freeze.js';
 import { clearStale } from './archive/files.js';
 import { step } from './archive/steps.js';
@@ -193,14 +193,15 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
       const since = changesSince(latest, data, { by: info.by, date: info.date, reason: info.reason });
       if (!since.ok) return refuse(1, `cannot compare with Revision ${latest?.number}: ${since.why}; run packsmith verify`);
       const pack = packFiles(project, assessment, label, since.changes, style);
-      const html = pack.html;
       step('rendered');
 
       const staging = openStaging(jobOut);
       let committed = false;
       try {
         step('staging');
-        const htmlPath = staging.add('pack.html', html);
+        const htmlHash = createHash('sha256');
+        const htmlPath = staging.add('pack.html', pack.html, (bytes) => htmlHash.update(bytes));
+        const htmlSha = htmlHash.digest('hex');
         step('wrote-html');
         const pdf = await packPdf(printer, htmlPath, project, label, pack, style.paper, data);
         step('printed');
@@ -221,7 +222,7 @@ export async function issueRevision(opts: IssueOptions): Promise<IssueResult> {
           input_hash: inputHash,
           inputs,
           templates_hash: templatesHash,
-          outputs: { 'pack.html': sha256(html), 'pack.pdf': sha256(pdf), 'data.json': sha256(data) },
+          outputs: { 'pack.html': htmlSha, 'pack.pdf': sha256(pdf), 'data.json': sha256(data) },
         };
         const manifestText = manifestBytes(manifest);
         staging.add('manifest.json', manifestText);

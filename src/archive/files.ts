@@ -4,14 +4,18 @@ import { chmodSync, closeSync, fsyncSync, openSync, readdirSync, renameSync, rmS
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join } from 'node:path';
 
-/** Create a file that must not exist yet, and flush it to disk. */
-export function writeNew(path: string, bytes: Uint8Array | string): void {
+/**
+ * Create a file that must not exist yet, and flush it to disk. `seen` is given the bytes written:
+ * a text is encoded once, for the file and for whatever `seen` makes of it (its hash).
+ */
+export function writeNew(path: string, bytes: Uint8Array | string, seen?: (bytes: Uint8Array) => void): void {
   const fd = openSync(path, 'wx', 0o644);
   try {
     const buf = typeof bytes === 'string' ? Buffer.from(bytes) : bytes;
     let done = 0;
     while (done < buf.length) done += writeSync(fd, buf, done, buf.length - done);
     fsyncSync(fd);
+    seen?.(buf);
   } finally {
     closeSync(fd);
   }

@@ -10,7 +10,8 @@ import { revisionDirName } from './revisions.js';
 
 export interface Staging {
   dir: string;
-  add(name: string, bytes: Uint8Array | string): string;
+  /** writes the file and gives its path; `seen` is given every byte written, in order */
+  add(name: string, bytes: Uint8Array | string, seen?: (bytes: Uint8Array) => void): string;
   seal(): void;
   /** rename to rev-N; "taken" when another run got there first (the working folder is then removed) */
   commit(n: number): 'committed' | 'taken';
@@ -23,9 +24,9 @@ export function openStaging(jobOut: string): Staging {
   mkdirSync(dir);
   return {
     dir,
-    add(name, bytes) {
+    add(name, bytes, seen) {
       const path = join(dir, name);
-      writeNew(path, bytes);
+      writeNew(path, bytes, seen);
       return path;
     },
     seal: () => seal(dir),

@@ -58,6 +58,8 @@ describe('packsmith issue: two revisions of one job', () => {
     expect(Object.keys(manifest.inputs)).toEqual(['circuits.csv', 'project.yaml', 'readings/2026-10-09.csv']);
     expect(manifest.inputs['circuits.csv']).toBe(sha(join(job, 'circuits.csv')));
     expect(manifest.outputs['pack.pdf']).toBe(sha(join(rev(1), 'pack.pdf')));
+    // the page's hash is taken of the bytes as they are written (FIPS 180-4 SHA-256 of the file)
+    expect(manifest.outputs['pack.html']).toBe(sha(join(rev(1), 'pack.html')));
     expect(manifest.rules).toMatchObject({ set: 'iec-60364', cmin: 0.95, overrides: [] });
     expect(manifest.previous).toBeNull();
     first = folderHashes(rev(1));
