@@ -8,7 +8,7 @@ import type { Assessment, Status } from '../calc/types.js';
 import { circuitKey } from '../model/readings.js';
 import { markdownToHtml } from './markdown.js';
 import { look, overallStatus, STATUS_LOOK } from './status.js';
-import { boardSchedules, RESULT_COLUMNS } from './sections/schedules.js';
+import { boardSchedules, circuitsByBoard, RESULT_COLUMNS } from './sections/schedules.js';
 import { appendixBoards } from './sections/appendix.js';
 import { openItemsAndSafety } from './sections/summary.js';
 import { rulesView } from './sections/rules.js';
@@ -50,6 +50,8 @@ const resultHeads = () => RESULT_COLUMNS.map((c) => ({ head: c.head, title: READ
 export function buildView(project: Project, assessment: Assessment, opts: RenderOptions, assets: ThemeAssets = { css: '', logo: null }) {
   const f = project.file;
   const byCircuit = new Map(assessment.circuits.map((c) => [circuitKey(c.board, c.ref), c]));
+  // each board's circuits, grouped once for the schedules and the appendix
+  const circuitsOn = circuitsByBoard(project);
   const { openItems, safety } = openItemsAndSafety(project, byCircuit);
   const paper = opts.paper ?? 'A4';
 
@@ -80,9 +82,9 @@ export function buildView(project: Project, assessment: Assessment, opts: Render
     // the summary says where the working of an item needing attention is, when there is one
     attentionLinked: openItems.some((o) => !o.full),
     departures: assessment.departures.map((d) => ({ basis: plainWords(d.basis), circuits: d.circuits.join(', ') })),
-    boards: boardSchedules(project, byCircuit, assessment),
+    boards: boardSchedules(project, byCircuit, assessment, circuitsOn),
     resultHeads: resultHeads(),
-    appendix: appendixBoards(project, assessment, byCircuit),
+    appendix: appendixBoards(project, assessment, byCircuit, circuitsOn),
     sessions: project.sessions,
     notesHtml: project.notes ? markdownToHtml(project.notes, { topLevel: 3 }) : null,
     changes: opts.changes ? changesView(opts.changes) : null,

@@ -1,14 +1,14 @@
 // The appendix: per circuit every check, a passing one in one line (its value against its
 // limit), any other with its full basis and, where re-tested, its earlier verdicts; and the
 // circuit's curve snippet.
-import type { Project } from '../../model/validate.js';
+import type { CircuitRecord, Project } from '../../model/validate.js';
 import type { Assessment, CheckResult, CircuitAssessment, Status } from '../../calc/types.js';
 import { circuitKey } from '../../model/readings.js';
 import { checkLabel, plainWords, sentence } from '../labels.js';
 import { look, worstStatus } from '../status.js';
 import { comparison, historyLine } from '../values.js';
 import { circuitSnippet, snippetRequest } from '../snippets.js';
-import { anchor, circuitAnchor, circuitsByBoard } from './schedules.js';
+import { anchor, circuitAnchor } from './schedules.js';
 
 /** The text before its first ": " (all of it where there is none). */
 const beforeColon = (text: string): string => {
@@ -27,8 +27,9 @@ export function checkLine(k: CheckResult) {
 
 type CheckView = ReturnType<typeof checkLine>;
 
-export function appendixBoards(project: Project, assessment: Assessment, byCircuit: Map<string, CircuitAssessment>) {
-  const circuitsOn = circuitsByBoard(project);
+export function appendixBoards(
+  project: Project, assessment: Assessment, byCircuit: Map<string, CircuitAssessment>, circuitsOn: (board: string) => CircuitRecord[],
+) {
   return project.file.boards.map((b) => ({
     id: b.id,
     location: b.location ?? null,

@@ -156,8 +156,9 @@ export function circuitsByBoard(project: Pick<Project, 'circuits'>): (board: str
   return (board) => on.get(board) ?? [];
 }
 
-export function boardSchedules(project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>) {
-  const circuitsOn = circuitsByBoard(project);
+export function boardSchedules(
+  project: Project, byCircuit: Map<string, CircuitAssessment>, assessment: Pick<Assessment, 'boards'>, circuitsOn: (board: string) => CircuitRecord[],
+) {
   return project.file.boards.map((b) => {
     const notes: Footnote[] = [];
     // each circuit with its assessment and readings, looked up once
