@@ -7,8 +7,11 @@
 // node starts and with one V8 helper thread; the preview refresh; and peak memory.
 // `--quick` prints 10 packs in the PDF stage, rebuilds at 200 jobs only, prints a 200-circuit job
 // in place of the 2,000-circuit one and leaves out the preview (about two minutes).
+// `--against REV` (again for more) adds the HTML stage side by side with another revision of
+// packsmith, checked out and built in a temporary worktree: how many times as fast this code is,
+// each round a cold pass of each (bench/against.ts).
 //
-//   npm run bench [-- --jobs N] [--quick] [--keep]
+//   npm run bench [-- --jobs N] [--quick] [--keep] [--against REV ...]
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -24,11 +27,13 @@ import { htmlStage } from './html.js';
 import { sampleTree } from './memory.js';
 import { describeTimes, previewRefresh } from './serve.js';
 import { checkStart, htmlStageByPool, largeJobFromShell, rebuildAfterRetest, retest } from './scale.js';
+import { againstRevision, commitOf } from './against.js';
 
-const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' }, quick: { type: 'boolean' } } });
+const { values } = parseArgs({ options: { jobs: { type: 'string', default: '200' }, keep: { type: 'boolean' }, quick: { type: 'boolean' }, against: { type: 'string', multiple: true } } });
 const quick = values.quick === true;
 const count = Number(values.jobs);
 if (!Number.isInteger(count) || count < 1) throw new Error(`--jobs ${values.jobs}: expected a whole number of jobs`);
+for (const rev of values.against ?? []) commitOf(rev); // a name git does not know fails now, not after the bench's other rows
 
 const seconds = (t0: bigint) => Number(process.hrtime.bigint() - t0) / 1e9;
 const now = () => process.hrtime.bigint();
@@ -115,6 +120,8 @@ async function main() {
   const checks = checkStart(root);
   // ---- the HTML stage in a fresh node, as started and with one V8 helper thread, alternated
   const byPool = htmlStageByPool(root, count, 3);
+  // ---- the HTML stage side by side with other revisions (--against)
+  const against = (values.against ?? []).map((rev) => againstRevision(rev, join(root, 'projects'), quick ? 3 : 5, say));
   // ---- packsmith serve: a save of the biggest job until the open preview shows it
   const preview = quick ? null : await previewRefresh(archive.jobs, chromium);
   if (preview) say(`preview refresh ${describeTimes(preview.saveToPage)}`);
@@ -130,6 +137,7 @@ async function main() {
     ...rebuilds.map((r): [string, string, string, string] => [`rebuild after one re-test, ${r.size} jobs`, `${r.seconds.toFixed(2)} s`, '', `${r.printed} pack printed; the drafts laid down first in ${r.setup.toFixed(0)} s (blank PDFs)`]),
     [`${largeCircuits.toLocaleString('en-GB')}-circuit job, build from the shell`, large.code === 0 ? `${large.seconds.toFixed(1)} s` : `failed (exit ${large.code})`, '', `${large.pages ?? 'no'} pages, peak memory ${large.peakMb.toFixed(0)} MB (packsmith + Chromium)${large.code === 0 ? '' : `; ${large.error}`}`],
     poolRow(byPool, archive.circuits),
+    ...against,
     ['check of a 40-circuit job, from the shell', `${(median(checks) * 1000).toFixed(0)} ms`, '', `median of ${checks.length}, max ${(Math.max(...checks) * 1000).toFixed(0)} ms`],
     ...(preview ? [[`preview refresh after a save (${preview.circuits} circuits)`, `${describeTimes(preview.saveToPage)}`, '', `save → page shows it, painted, ${preview.saveToPage.length} saves; of which watch ${describeTimes(preview.watch)}, render ${describeTimes(preview.render)}, render end → page ${describeTimes(preview.browser)}; pages loaded again ${preview.reloads}`] as [string, string, string, string]] : []),
     ['peak memory, Chromium (PDF stage)', `${oursMb.toFixed(0)} MB`, `${bareMb.toFixed(0)} MB`, `ratio ${(oursMb / (bareMb || 1)).toFixed(2)}`],
