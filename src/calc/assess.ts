@@ -83,6 +83,7 @@ export function circuitContext(
     ...(site ? { site } : {}),
     vdOrigin,
     requiredBasis: required.basis,
+    maxZsOhm: mz ? mz.max_zs_ohm : null,
     maxZsBasis: mz
       ? `${circuit.device} ${circuit.rating_a} A at ${required.seconds} s: U0 ${rules.u0_v} V × Cmin ${rules.cmin} / ${mz.basis}; required time ${required.basis}`
       : `the device library knows no current that operates ${circuit.device} ${circuit.rating_a} A within ${required.seconds} s, and circuits.csv gives no device_ia_a from its maker`,

@@ -16,15 +16,16 @@ export interface FaultProtection {
   basis: string;
 }
 
-export function faultProtection(ctx: Pick<CircuitContext, 'circuit' | 'supply' | 'derived' | 'maxZsBasis'>): FaultProtection {
-  const { circuit, supply, derived } = ctx;
+export function faultProtection(ctx: Pick<CircuitContext, 'circuit' | 'supply' | 'maxZsOhm' | 'maxZsBasis'>): FaultProtection {
+  const { circuit, supply } = ctx;
   if (supply.earthing === 'TT' && circuit.rcd_ma !== undefined) {
     const ma = circuit.rcd_ma;
     const limit = TOUCH_VOLTAGE_LIMIT_V / (ma / 1000);
     return withBasis({ by: 'rcd' as const, limit_ohm: limit },
       () => `TT supply, fault protection by the ${fmt(ma)} mA RCD: Zs × IΔn ≤ ${TOUCH_VOLTAGE_LIMIT_V} V, so Zs ≤ ${TOUCH_VOLTAGE_LIMIT_V} V / ${fmt(ma)} mA = ${fmt(limit)} Ω (IEC 60364-4-41, 411.5.3)`);
   }
-  const max = derived.max_zs_ohm;
+  // the limit as worked out, not its rounding in the tables (which may lie above it)
+  const max = ctx.maxZsOhm;
   const { maxZsBasis } = ctx;
   return withBasis({ by: 'overcurrent' as const, limit_ohm: max }, () => (max === null
     ? `fault protection by the overcurrent device; ${maxZsBasis}`

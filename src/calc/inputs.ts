@@ -1,6 +1,6 @@
 // Inputs the calculation cannot work with: a size, method or condition outside the published
 // tables, a three-phase circuit on a single-phase supply, a device used above its rated voltage,
-// an RCBO without its residual current rating.
+// an RCBO or an RCD type without the residual current rating.
 // They are input errors (the folder must be corrected), never guesses. Pure: validation takes
 // these rules and locates each problem in circuits.csv.
 import type { Circuit, ProjectFile } from '../model/schema.js';
@@ -32,15 +32,18 @@ export const ratedVoltage: CircuitRule = (c: Circuit, file: ProjectFile | null) 
 };
 
 /**
- * An RCBO is an RCD with overcurrent protection (IEC 61009-1): without its residual current rating
- * its RCD element would go untested and unjudged, so the rating is required.
+ * An RCBO is an RCD with overcurrent protection (IEC 61009-1), and an RCD type names an RCD: without
+ * its residual current rating the RCD would go untested and unjudged (its readings set aside as
+ * "no RCD"), so the rating is required.
  */
-export const rcboRating: CircuitRule = (c: Circuit) =>
-  c.device.startsWith('rcbo:') && c.rcd_ma === undefined
-    ? { field: 'rcd_ma', message: `found nothing; ${c.device} is an RCBO: give the residual current rating of its RCD element (e.g. 30), so that it is tested and judged` }
-    : null;
+export const rcdRating: CircuitRule = (c: Circuit) => {
+  if (c.rcd_ma !== undefined) return null;
+  if (c.device.startsWith('rcbo:')) return { field: 'rcd_ma', message: `found nothing; ${c.device} is an RCBO: give the residual current rating of its RCD element (e.g. 30), so that it is tested and judged` };
+  if (c.rcd_type !== undefined) return { field: 'rcd_ma', message: `found nothing; rcd_type gives a type ${c.rcd_type} RCD on this circuit: give its rated residual current (e.g. 30), so that it is tested and judged` };
+  return null;
+};
 
-export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage, rcboRating];
+export const CALC_RULES: readonly CircuitRule[] = [outOfTable, phasesOnSupply, ratedVoltage, rcdRating];
 
 /** The tree of boards: a feeding circuit that is not in circuits.csv, or a loop, is an input error. */
 export const treeRule: ProjectRule = (file, circuitKeys) =>

@@ -78,5 +78,6 @@ class AtLength implements CircuitContext {
   get derived() { return this.trial.base.derived; }
   get requiredBasis() { return this.trial.base.requiredBasis; }
   get maxZsBasis() { return this.trial.base.maxZsBasis; }
+  get maxZsOhm() { return this.trial.base.maxZsOhm; }
   get site() { return this.trial.base.site; }
 }

@@ -70,6 +70,11 @@ export interface CircuitContext {
   requiredBasis: string;
   /** why max Zs is what it is (or why it is unknown) */
   maxZsBasis: string;
+  /**
+   * max Zs as worked out, the limit the checks compare with; derived.max_zs_ohm is its rounding to
+   * 3 places for the tables, which may lie up to 0.5 mΩ above it
+   */
+  maxZsOhm: number | null;
   /** where the circuit stands in the tree of boards (absent: a board fed from the origin, as given) */
   site?: CircuitSite;
   /** voltage drop from the origin to the far end (null where a feeding circuit's drop is not known) */

@@ -118,9 +118,13 @@ ${devices}
 
 ## readings/*.csv
 
-One CSV per test session, named after its test date. A later session's value supersedes an
-earlier one field by field and keeps the date it was measured. An instrument's export can be
-used as it is: map its headers under \`readings.columns\` in project.yaml.
+One CSV per test session, named after its test date (a day of the calendar; two sessions of one
+date need different labels, not only different capital letters). A later session's value
+supersedes an earlier one field by field and keeps the date it was measured; a later \`n/a\` or
+\`not-tested\` does not set aside an earlier reading or result, which stands until it is measured
+again. An \`n/a\` takes its reason from the notes of its own row, and an insulation reading is
+judged at the \`ir_test_v\` of its own session. An instrument's export can be used as it is: map
+its headers under \`readings.columns\` in project.yaml.
 
 ${table(rows(readingsJsonSchema(), '', 'readings'), 'column')}
 

@@ -8,6 +8,7 @@ import { readCsv } from './csv.js';
 import { readYaml } from './yaml.js';
 import { confinedTo, isInside, realFolder } from './confine.js';
 import { decodeText } from './text.js';
+import { isCalendarDate } from './date.js';
 import { findFirmFile, firmFileBytes, readFirm, withFirm } from './firm.js';
 import type { LocatedError, RawJob, RawSession } from './raw.js';
 
@@ -39,6 +40,8 @@ function notASession(name: string, folder: boolean): string {
   const lower = name.toLowerCase();
   const rename = 'a readings file is named after its test date: YYYY-MM-DD.csv or YYYY-MM-DD-label.csv';
   if (folder) return `a folder inside readings/; ${rename}, directly in readings/: move the folder out`;
+  const dated = SESSION_NAME.exec(name);
+  if (dated && !isCalendarDate(dated[1]!)) return `${dated[1]} is not a day of the calendar; ${rename}`;
   if (lower.startsWith('.~lock.') || lower.startsWith('~$')) return 'a lock file left by a spreadsheet program that has a readings file open; close the spreadsheet (or delete this file) and run again';
   if (/\.(xlsx|xlsm|xls|ods|numbers)$/.test(lower)) return `a spreadsheet workbook, which packsmith does not read; save the sheet as CSV ("CSV UTF-8") as ${lower.replace(/\.[a-z]+$/, '.csv')} and move this file out of readings/`;
   if (/\.csv\.[a-z0-9]+$/.test(lower) || lower.endsWith('.txt')) return `not named .csv (a program may have added "${name.slice(name.toLowerCase().lastIndexOf('.'))}"); rename it so it ends in .csv: ${rename}`;
@@ -123,7 +126,7 @@ export function readJob(dir: string): RawJob {
       try {
         folder = lstatSync(join(readingsDir, name)).isDirectory();
       } catch { /* vanished: reported by the read below */ }
-      if (folder || !m || Number.isNaN(Date.parse(m[1]!))) {
+      if (folder || !m || !isCalendarDate(m[1]!)) {
         errors.push({ file: rel, row: 1, column: 1, message: notASession(name, folder) });
         continue;
       }
@@ -131,7 +134,15 @@ export function readJob(dir: string): RawJob {
       if (text === undefined) continue;
       const { table, errors: e } = readCsv(rel, text ?? '');
       for (const x of e) errors.push(x);
-      sessions.push({ date: m[1]!, label: m[2] ?? '', table });
+      const label = m[2] ?? '';
+      // 2026-11-20.csv and 2026-11-20.CSV (or -Retest and -retest) are one session twice: which
+      // came first cannot be told, so neither may silently win
+      const twin = sessions.find((s) => s.date === m[1] && s.label.toLowerCase() === label.toLowerCase());
+      if (twin) {
+        errors.push({ file: rel, row: 1, column: 1, message: `the same session as ${twin.table.file} (the same date and label, told apart only by capital letters), so which came first cannot be told; join the two into one file, or label the later one, e.g. ${m[1]}-retest.csv` });
+        continue;
+      }
+      sessions.push({ date: m[1]!, label, table });
     }
     sessions.sort(sessionOrder);
     job.sessions = sessions;

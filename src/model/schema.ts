@@ -6,6 +6,7 @@ import { RULE_SET_IDS } from '../reference/rule-sets/index.js';
 import { choice, quantity, reading, word, yesNo } from './cells.js';
 import type { Quantity } from './units.js';
 import { implausible } from './plausible.js';
+import { isCalendarDate } from '../load/date.js';
 import { plainText } from '../load/number.js';
 
 const implausibleFrequency = (f: number): string | null => implausible('frequency_hz', f, plainText(f));
@@ -97,8 +98,8 @@ const Party = z.strictObject({
   contact: word('a contact').optional(),
 });
 
-const isoDate = word('a date as YYYY-MM-DD').refine((s) => /^\d{4}-\d{2}-\d{2}$/.test(s) && !Number.isNaN(Date.parse(s)), {
-  error: (iss) => `found "${String(iss.input)}"; expected a date as YYYY-MM-DD`,
+const isoDate = word('a date as YYYY-MM-DD').refine((s) => isCalendarDate(s), {
+  error: (iss) => `found "${String(iss.input)}"; expected a date as YYYY-MM-DD${/^\d{4}-\d{2}-\d{2}$/.test(String(iss.input)) ? ' that is a day of the calendar' : ''}`,
 });
 
 export const EARTHING = ['TN-S', 'TN-C-S', 'TT', 'IT'] as const;
@@ -230,7 +231,7 @@ export const CircuitSchema = z.object({
   method: choice(METHODS, 'an installation reference method'),
   phases: choice(['1', '3'] as const, 'the number of phases').transform(Number).default(1),
   breaking_ka: quantity('kiloampere', { positive: true }).optional(),
-  rcd_ma: quantity('milliampere', { positive: true }).optional(),
+  rcd_ma: quantity('milliampere', { positive: true, field: 'rcd_ma' }).optional(),
   rcd_type: choice(RCD_TYPES, 'an RCD type').optional(),
   insulation: choice(['pvc70', 'xlpe90'] as const, 'the cable insulation').default('pvc70'),
   conductor: choice(['cu', 'al'] as const, 'the conductor material').default('cu'),

@@ -1,7 +1,9 @@
 // Source: physical limits and instrument ranges, each with its reasoning beside it; the test
 // voltages are those of IEC 60364-6:2016 Table 6.1 and the nominal output voltages of insulation
 // testers in IEC 61557-2 (the open-circuit voltage at most 1.5 × nominal, from memory); the supply
-// voltages are the low-voltage nominal voltages of IEC 60038 Table 1 (from memory).
+// voltages are the low-voltage nominal voltages of IEC 60038 Table 1 (from memory); the RCD
+// ratings are the preferred rated residual operating currents of IEC 61008-1 / IEC 61009-1 (from
+// memory).
 //
 // A measured or supply value outside its range is not a reading anyone could have taken: it is
 // an input error (exit 2), never a value the checks may pass. A value inside the range may still
@@ -48,6 +50,8 @@ export const PLAUSIBLE: Readonly<Record<string, PlausibleRange>> = {
   pfc_3ph_ka: { above: 0, atMost: 200, unit: 'kA', why: FAULT_CURRENT },
   frequency_hz: { atLeast: 15, atMost: 500, unit: 'Hz', why: 'public supplies run at 50 or 60 Hz (IEC 60038); the low-voltage supplies furthest from these, traction at 16.7 Hz and aircraft at 400 Hz, stay inside 15 to 500 Hz (from memory)' },
   ra_ohm: { above: 0, atMost: 20_000, unit: 'Ω', why: 'an earth electrode has resistance, and above 20 kΩ it is not in contact with the ground (from memory)' },
+  // circuits.csv
+  rcd_ma: { atLeast: 6, atMost: 30_000, unit: 'mA', why: 'an RCD\'s rated residual operating current is 6, 10, 30, 100, 300 or 500 mA, or 1 A and more up to 30 A (the preferred values of IEC 61008-1 and IEC 61009-1, from memory); a figure below 6 is most likely in amperes: write 300, or "0.3 A", for a 300 mA device' },
 };
 
 /** Nominal insulation test voltages (IEC 61557-2; IEC 60364-6 Table 6.1 uses 250, 500, 1000 V). */

@@ -40,10 +40,20 @@ describe('a re-test traced through its sessions', () => {
   it('keeps the fields a later session does not repeat (field by field)', () => {
     const r = traced(insulation, sessions({}, [
       { date: '2026-11-13', readings: { ir_le_mohm: '0.8', ir_ll_mohm: '>999', ir_test_v: '500' } },
+      { date: '2026-11-20', readings: { ir_le_mohm: '300', ir_test_v: '500' } },
+    ]));
+    expect(r.status).toBe('pass'); // L–L carried over from 2026-11-13, with that session's 500 V
+    expect(r.history?.map((h) => h.status)).toEqual(['fail', 'pass']);
+  });
+  it('judges a reading at the test voltage of its own session, not one an earlier session gave', () => {
+    // the re-test gives no voltage: it may have been the 250 V test, which could at best be
+    // attention (BS 7671 643.3; IEC 60364-6, 6.4.3.3), so 300 MΩ cannot pass on 2026-11-13's 500 V
+    const r = traced(insulation, sessions({}, [
+      { date: '2026-11-13', readings: { ir_le_mohm: '0.8', ir_ll_mohm: '>999', ir_test_v: '500' } },
       { date: '2026-11-20', readings: { ir_le_mohm: '300' } },
     ]));
-    expect(r.status).toBe('pass'); // L–L and the test voltage carried over from 2026-11-13
-    expect(r.history?.map((h) => h.status)).toEqual(['fail', 'pass']);
+    expect(r.status).toBe('not-verified');
+    expect(r.basis).toBe('no insulation test voltage (ir_test_v) recorded with the L–E reading of 2026-11-20');
   });
   it('starts the history at the first session that gave the check something to judge', () => {
     const r = traced(zsMeasured, sessions({}, [

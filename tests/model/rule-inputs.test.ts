@@ -2,7 +2,7 @@
 // three-phase circuit on a single-phase supply and a device above its rated voltage (point 11).
 import { describe, expect, it } from 'vitest';
 import { ProjectFileSchema, CircuitSchema } from '../../src/model/schema.js';
-import { phasesOnSupply, ratedVoltage, rcboRating } from '../../src/calc/inputs.js';
+import { phasesOnSupply, ratedVoltage, rcdRating } from '../../src/calc/inputs.js';
 import { BASE_CIRCUIT, projectFile } from '../helpers/project.js';
 import { demoCopy, errorsOf, replaceIn } from '../helpers/job.js';
 
@@ -48,9 +48,9 @@ describe('an RCBO without its residual current rating', () => {
   // IEC 61009-1: an RCBO is a residual current device with overcurrent protection; its RCD element
   // is tested like any RCD (IEC 60364-6, 6.4.3.8), which needs its IΔn
   it('is an input error on rcd_ma; with a rating, or for an MCB, it is not', () => {
-    expect(rcboRating(circuit({ device: 'rcbo:B' }), null)).toMatchObject({ field: 'rcd_ma', message: expect.stringMatching(/rcbo:B is an RCBO/) });
-    expect(rcboRating(circuit({ device: 'rcbo:B', rcd_ma: '30' }), null)).toBeNull();
-    expect(rcboRating(circuit({ device: 'mcb:B' }), null)).toBeNull();
+    expect(rcdRating(circuit({ device: 'rcbo:B' }), null)).toMatchObject({ field: 'rcd_ma', message: expect.stringMatching(/rcbo:B is an RCBO/) });
+    expect(rcdRating(circuit({ device: 'rcbo:B', rcd_ma: '30' }), null)).toBeNull();
+    expect(rcdRating(circuit({ device: 'mcb:B' }), null)).toBeNull();
   });
 });
 

@@ -13,7 +13,8 @@ const SUFFIX: Record<string, { one: string[]; value?: number }> = {
   m: { one: ['1 m', '1000 mm', '100 cm'] },
   mm2: { one: ['1 mm²', '1 mm2'] },
   a: { one: ['1 A', '1000 mA', '0.001 kA'] },
-  ma: { one: ['1 mA', '0.001 A'] },
+  // a residual current within rcd_ma's plausible range (6 mA and up: IEC 61008-1 preferred values, from memory)
+  ma: { one: ['30 mA', '0.03 A'], value: 30 },
   ka: { one: ['1 kA', '1000 A'] },
   s: { one: ['1 s', '1000 ms'] },
   ms: { one: ['1 ms'] },

@@ -66,8 +66,16 @@ describe('RCD test button and missing readings', () => {
     expect(rcd(context(c, { rcd_1x_ms: '20', rcd_5x_ms: '10', rcd_button: 'n/a' })).status).toBe('not-verified');
   });
   it('is n/a, with the reason, on a circuit without an RCD', () => {
-    const r = rcd(context({}, { rcd_1x_ms: '20' }));
+    const r = rcd(context({}, { rcd_1x_ms: 'n/a', rcd_button: 'not-tested' }));
     expect(r.status).toBe('n/a');
     expect(r.basis).toBe('no RCD on this circuit');
+  });
+  it('does not set aside RCD results recorded for a circuit that circuits.csv gives no RCD', () => {
+    // 450 ms at 1 × IΔn is over the 300 ms of IEC 61008-1 / 61009-1 for a general-type RCD: it must
+    // not vanish behind "no RCD"; without the RCD's rating it cannot be judged either
+    const r = rcd(context({}, { rcd_1x_ms: '450', rcd_button: 'fail' }));
+    expect(r.status).toBe('attention');
+    expect(r.basis).toContain('1 × IΔn 450 ms on');
+    expect(r.basis).toContain('test button fail on');
   });
 });

@@ -2,7 +2,7 @@
 // (derived r1r2_expected_ohm at 20 °C, the reference temperature of IEC 60228, taken as the test
 // temperature: a test at 10 °C reads about 4 % lower, well inside the tolerance). Well above it —
 // beyond the rule set's tolerance, 25 % + 0.05 Ω by default (common practice) — is `attention`:
-// a poor joint or a longer route than recorded. Measured Ze (or the board's Zdb) + R1+R2 above
+// a poor joint or a longer route than recorded. Ze at the board (as the design takes it) + R1+R2 above
 // the fault protection limit is a `fail`; the reading is taken cold, so it is first raised to the
 // conductor's temperature in service by the resistance ratio R(θ)/R(20 °C) = 1 + α (θ − 20)
 // (IEC 60287-1-1 α; θ the insulation's maximum operating temperature), never compared cold with
@@ -12,7 +12,7 @@ import type { Check } from '../types.js';
 import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
 import { ALPHA20_PER_K, OPERATING_TEMP_C } from '../../reference/conductors.js';
-import { numberOf, result, shown, unusable } from './result.js';
+import { numberOf, result, shown, toFiveFigures, unusable } from './result.js';
 
 const id = 'continuity';
 const round = (n: number) => toPlaces(n, 3);
@@ -29,8 +29,12 @@ export const continuity: Check = (ctx) => {
 
   // The loop: Ze at the board + R1+R2 against the fault protection limit.
   const fp = faultProtection(ctx);
-  const ze = board.zdb_ohm ?? supply.ze_ohm;
-  const zeWords = board.zdb_ohm !== undefined ? `Zdb ${fmt(board.zdb_ohm)} Ω at ${board.id}` : `Ze ${fmt(ze ?? 0)} Ω`;
+  // the board's source impedance as the design takes it: a Zdb measured below Ze (a slip, or a
+  // reading of the wrong board) does not lower the loop, which holds Ze whatever is measured
+  const given = board.zdb_ohm ?? supply.ze_ohm;
+  const source = ctx.design.source;
+  const ze = source ? source.ohm : given;
+  const zeWords = source && source.ohm !== given ? source.words : board.zdb_ohm !== undefined ? `Zdb ${fmt(board.zdb_ohm)} Ω at ${board.id}` : `Ze ${fmt(ze ?? 0)} Ω`;
   const theta = OPERATING_TEMP_C[ctx.circuit.insulation];
   const ratio = 1 + ALPHA20_PER_K[ctx.circuit.conductor] * (theta - 20);
   const hot = `R1+R2 × ${fmt(ratio)} (resistance ratio ${theta} °C / 20 °C, IEC 60287-1-1)`;
@@ -38,8 +42,8 @@ export const continuity: Check = (ctx) => {
     const loop = ze + r.value * ratio;
     // ">N" is above N: at or beyond the limit it is a fail
     if (loop > fp.limit_ohm || (r.kind === 'at-least' && loop >= fp.limit_ohm)) {
-      return result(id, 'fail', `${zeWords} + ${measured} × ${fmt(ratio)} (resistance ratio ${theta} °C / 20 °C, IEC 60287-1-1) = ${r.kind === 'at-least' ? '>' : ''}${fmt(loop)} Ω > ${fmt(fp.limit_ohm)} Ω (${fp.basis})`,
-        { ...reading, limit: round((fp.limit_ohm - ze) / ratio) });
+      return result(id, 'fail', `${zeWords} + ${measured} × ${fmt(ratio)} (resistance ratio ${theta} °C / 20 °C, IEC 60287-1-1) = ${r.kind === 'at-least' ? '>' : ''}${fmt(loop)} Ω > ${fmt(fp.limit_ohm)} Ω${toFiveFigures(loop, '>', fp.limit_ohm, 'Ω')} (${fp.basis})`,
+        { ...reading, limit: Math.max(0, round((fp.limit_ohm - ze) / ratio)) }); // Ze alone over the limit: no R1+R2 passes
     }
   }
   const expected = ctx.derived.r1r2_expected_ohm ?? null;

@@ -1,7 +1,7 @@
 // Polarity: every single-pole device in the line conductor, as recorded by the tester
 // (IEC 60364-6, 6.4.3.6; BS 7671 643.6 — clause numbers from memory).
 import type { Check } from '../types.js';
-import { notVerified, result } from './result.js';
+import { notVerified, reasonFor, result } from './result.js';
 
 export const polarity: Check = ({ readings }) => {
   const m = readings.polarity;
@@ -9,10 +9,12 @@ export const polarity: Check = ({ readings }) => {
   switch (m.value) {
     case 'ok': return result('polarity', 'pass', `polarity confirmed correct on ${m.date}: single-pole devices in the line conductor (IEC 60364-6, 6.4.3.6)`, { date: m.date });
     case 'fail': return result('polarity', 'fail', `polarity found incorrect on ${m.date}`, { date: m.date });
-    case 'n/a':
-      return readings.notes
-        ? result('polarity', 'n/a', `polarity marked n/a on ${m.date}: ${readings.notes.value}`, { date: m.date })
-        : result('polarity', 'not-verified', `polarity marked n/a on ${m.date} with no reason in notes`, { date: m.date });
+    case 'n/a': {
+      const reason = reasonFor(readings.notes, m);
+      return reason !== undefined
+        ? result('polarity', 'n/a', `polarity marked n/a on ${m.date}: ${reason}`, { date: m.date })
+        : result('polarity', 'not-verified', `polarity marked n/a on ${m.date} with no reason in that session's notes`, { date: m.date });
+    }
     default: return result('polarity', 'not-verified', `polarity marked not tested on ${m.date}`, { date: m.date });
   }
 };

@@ -4,9 +4,10 @@
 // faster than its non-actuating time keeps the circuit safe but loses selectivity: attention.
 import { rcdKind } from '../devices/rcd.js';
 import type { Check, CheckResult, CircuitContext, Status } from '../types.js';
-import { fmt } from '../../model/units.js';
+import { fmt, type Reading } from '../../model/units.js';
+import { unmeasured, type SessionValue } from '../../model/readings.js';
 import { RCD_BREAK_TIMES, type RcdKind } from '../../reference/rcd.js';
-import { latest, notApplicable, numberOf, result, shown, unusable, worst } from './result.js';
+import { latest, notApplicable, numberOf, reasonFor, result, shown, unusable, worst } from './result.js';
 
 const id = 'rcd';
 
@@ -45,16 +46,34 @@ function testButton(ctx: CircuitContext): Part | CheckResult {
   switch (m.value) {
     case 'ok': return part('pass', 'test button ok');
     case 'fail': return part('fail', 'test button did not trip the RCD');
-    case 'n/a': return ctx.readings.notes ? part('n/a', `test button n/a: ${ctx.readings.notes.value}`) : result(id, 'not-verified', `RCD test button marked n/a on ${m.date} with no reason in notes`, { date: m.date });
+    case 'n/a': {
+      const reason = reasonFor(ctx.readings.notes, m);
+      return reason !== undefined ? part('n/a', `test button n/a: ${reason}`) : result(id, 'not-verified', `RCD test button marked n/a on ${m.date} with no reason in that session's notes`, { date: m.date });
+    }
     default: return result(id, 'not-verified', `RCD test button marked not tested on ${m.date}`, { date: m.date });
   }
+}
+
+/**
+ * RCD results recorded for a circuit that circuits.csv gives no RCD: they cannot be judged without
+ * the RCD's rating, and a failing one must not vanish behind "no RCD". `attention`, naming them.
+ */
+function strayResults({ readings }: CircuitContext): CheckResult | null {
+  const found = ([['rcd_1x_ms', '1 × IΔn'], ['rcd_5x_ms', '5 × IΔn'], ['rcd_button', 'test button']] as const).flatMap(([field, name]) => {
+    const m = readings[field];
+    if (!m || unmeasured(m.value)) return [];
+    const value = typeof m.value === 'string' ? m.value : shown(numberOf(m as SessionValue<Reading>), 'ms');
+    return [{ words: `${name} ${value} on ${m.date}`, date: m.date }];
+  });
+  if (found.length === 0) return null;
+  return result(id, 'attention', `circuits.csv gives no RCD on this circuit, but RCD results were recorded (${found.map((f) => f.words).join('; ')}): give the RCD's rcd_ma and rcd_type so they are judged, or correct the readings`, { date: latest(found.map((f) => f.date)) });
 }
 
 const isPart = (p: Part | CheckResult): p is Part => !('id' in p);
 
 export const rcd: Check = (ctx) => {
   const { circuit } = ctx;
-  if (circuit.rcd_ma === undefined) return notApplicable(id, 'no RCD on this circuit');
+  if (circuit.rcd_ma === undefined) return strayResults(ctx) ?? notApplicable(id, 'no RCD on this circuit');
   const kind: RcdKind = rcdKind(circuit.rcd_type);
   const standard = circuit.device.startsWith('rcbo:') ? 'IEC 61009-1' : 'IEC 61008-1';
   const parts = [tripTime(ctx, kind, 1, standard), tripTime(ctx, kind, 5, standard), testButton(ctx)];

@@ -4,7 +4,7 @@
 import type { CircuitContext, LengthCheck } from '../types.js';
 import { fmt, toPlaces } from '../../model/units.js';
 import { faultProtection } from '../fault-protection.js';
-import { notVerified, result } from './result.js';
+import { notVerified, result, toFiveFigures } from './result.js';
 
 const judge = (ctx: CircuitContext) => {
   const id = 'zs-design';
@@ -16,7 +16,8 @@ const judge = (ctx: CircuitContext) => {
   const limit = fp.limit_ohm;
   if (limit === null) return notVerified(id, () => `${zs.basis}; no limit to compare with: ${fp.basis}`);
   const ok = zs.ohm <= limit;
-  const words = () => `${zs.basis} ${ok ? '≤' : '>'} ${fmt(limit)} Ω (${fp.basis})`;
+  const op = ok ? '≤' : '>';
+  const words = () => `${zs.basis} ${op} ${fmt(limit)} Ω${toFiveFigures(zs.ohm, op, limit, 'Ω')} (${fp.basis})`;
   // Zdb is Ze plus the impedance up to the board: one below Ze is a reading to query
   const { board, supply } = ctx;
   const odd = ok && board.zdb_ohm !== undefined && supply.ze_ohm !== undefined && board.zdb_ohm < supply.ze_ohm;

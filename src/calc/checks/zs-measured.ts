@@ -14,8 +14,11 @@ import { numberOf, result, unusable } from './result.js';
 function implausible(ctx: CircuitContext, zs: number): string | null {
   const r1r2 = ctx.readings.r1r2_ohm?.value;
   if (r1r2?.kind === 'value' && zs < r1r2.value) return `measured Zs is below the measured R1+R2 ${fmt(r1r2.value)} Ω, which is part of the loop`;
-  const source = ctx.board.zdb_ohm ?? ctx.supply.ze_ohm;
-  if (source !== undefined && zs < source) return `measured Zs is below ${ctx.board.zdb_ohm !== undefined ? `Zdb ${fmt(source)} Ω at ${ctx.board.id}` : `Ze ${fmt(source)} Ω`}, which is part of the loop`;
+  const { zdb_ohm: zdb } = ctx.board;
+  const ze = ctx.supply.ze_ohm;
+  if (zdb !== undefined && zs < zdb) return `measured Zs is below Zdb ${fmt(zdb)} Ω at ${ctx.board.id}, which is part of the loop`;
+  // Ze at the origin is part of every loop, whatever Zdb a board records
+  if (ze !== undefined && zs < ze) return `measured Zs is below Ze ${fmt(ze)} Ω, which is part of the loop`;
   return null;
 }
 
