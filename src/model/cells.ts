@@ -77,8 +77,8 @@ export function reading(q: Quantity, unit = '', field = '') {
 }
 
 /** One of a fixed set of words, case-insensitive; the message lists the choices. */
-export function choice<const T extends readonly [string, ...string[]]>(values: T, what: string) {
-  const lookup = new Map(values.map((v) => [v.toLowerCase(), v]));
+export function choice<const T extends readonly [string, ...string[]]>(values: T, what: string, aliases: Readonly<Record<string, T[number]>> = {}) {
+  const lookup = new Map<string, T[number]>([...values.map((v): [string, T[number]] => [v.toLowerCase(), v]), ...Object.entries(aliases).map(([a, v]): [string, T[number]] => [a.toLowerCase(), v])]);
   return described(text(what).transform((s, ctx): T[number] => {
     const v = lookup.get(s.trim().toLowerCase());
     if (v === undefined) {

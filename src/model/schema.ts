@@ -31,7 +31,9 @@ export type MeasuredField = keyof typeof MEASURED;
 export const OUTCOMES = ['ok', 'fail', 'n/a', 'not-tested'] as const;
 export type Outcome = (typeof OUTCOMES)[number];
 
-const outcome = (what: string) => choice(OUTCOMES, what);
+/** The other ways a tester writes n/a and not tested, as a number cell reads them too (units.ts). */
+const OUTCOME_ALIASES = { na: 'n/a', 'not tested': 'not-tested', nt: 'not-tested' } as const;
+const outcome = (what: string) => choice(OUTCOMES, what, OUTCOME_ALIASES);
 
 /**
  * The schema of a readings row. `units` gives, for a measured field, the unit its column's header

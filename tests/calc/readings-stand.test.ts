@@ -189,3 +189,12 @@ describe('the session files of a job', () => {
     expect(['2026-02-29', '2100-02-29', '2026-04-31', '2026-13-01', '2026-00-10', '0099-01-01', '2026-1-01'].some(isCalendarDate)).toBe(false);
   });
 });
+
+describe('a result cell', () => {
+  it('reads n/a and not tested in the words a number cell reads them', () => {
+    for (const [written, read] of [['NA', 'n/a'], ['n/a', 'n/a'], ['not tested', 'not-tested'], ['NT', 'not-tested'], ['OK', 'ok']] as const) {
+      expect(ReadingRowSchema.parse({ board: 'DB1', ref: '1', polarity: written, rcd_button: written })).toMatchObject({ polarity: read, rcd_button: read });
+    }
+    expect(ReadingRowSchema.safeParse({ board: 'DB1', ref: '1', polarity: 'passed' }).success).toBe(false);
+  });
+});
